@@ -1,0 +1,11 @@
+// jstat ships no type declarations; only the parts Tallywise calls are declared.
+declare module 'jstat' {
+  export const jStat: {
+    chisquare: { cdf(x: number, df: number): number; pdf(x: number, df: number): number; inv(p: number, df: number): number };
+    normal: { cdf(x: number, mean: number, sd: number): number; inv(p: number, mean: number, sd: number): number };
+    poisson: { pdf(k: number, lambda: number): number; cdf(k: number, lambda: number): number };
+    binomial: { pdf(k: number, n: number, p: number): number; cdf(k: number, n: number, p: number): number };
+    gammaln(x: number): number;
+    lowRegGamma(a: number, x: number): number;
+  };
+}
