@@ -1,0 +1,197 @@
+import type { Analysis, AnalyzeOptions, TableOrigin } from './analysis';
+import { resolveOptions } from './options';
+import { contributionsTable, expectedCountsTable } from './report/markdownTables';
+import { writeUp } from './report/writeUp';
+import { buildFitRequest, parseFitSpec } from './stats/parseFitSpec';
+import type { FitRequest } from './stats/fitRequest';
+import { proposeMerge } from './stats/proposeMerge';
+import { testGoodnessOfFit } from './stats/testGoodnessOfFit';
+import { testIndependence } from './stats/testIndependence';
+import type { TestResult } from './stats/types';
+import { crossTabulateText } from './table/crossTabulate';
+import { locateTable } from './table/locateTable';
+import { describeLocation } from './table/describeLocation';
+import { readCountTable } from './table/readCountTable';
+import { fail, ok, type CountTable, type Issue, type Result } from './types';
+
+export type DocumentFormat = 'markdown' | 'delimited' | 'text';
+
+/** One analysis request: the document text, where the table is, and what to test. */
+export interface AnalyzeRequest {
+  text: string;
+  format: DocumentFormat;
+  /** 1-based line inside the table (the editor's cursor). */
+  line?: number;
+  /** 1-based inclusive line range of a selection. */
+  selection?: { startLine: number; endLine: number };
+  /** 1-based index of the table in the document. */
+  tableIndex?: number;
+  /** Goodness-of-fit hypothesis: "9:3:3:1", "0.5,0.3,0.2", "equal", "poisson", "binomial", "binomial:10". */
+  fit?: string;
+  /** Raw observations: the two columns to cross-tabulate, and an optional count/weight column. */
+  columns?: [string, string];
+  weight?: string;
+  options?: Partial<AnalyzeOptions>;
+}
+
+/** Labels that mark a row or column of expected counts to test the other one against. */
+const EXPECTED_LABEL = /^(expected|expected counts?|expect(ed)? n)$/i;
+
+/**
+ * The engine's one entry: find the table, read it, choose and run the test, write it up.
+ * Never throws on bad input; every failure is an Issue naming the place and the remedy.
+ */
+export function analyze(request: AnalyzeRequest): Result<Analysis> {
+  const options = resolveOptions(request.options);
+  if (!options.ok) return options;
+  const table = readTable(request);
+  if (!table.ok) return table;
+  return analyzeCountTable(table.value.table, table.value.origin, request.fit, options.value);
+}
+
+function readTable(request: AnalyzeRequest): Result<{ table: CountTable; origin: TableOrigin }> {
+  if (request.format === 'delimited' && (request.columns || request.weight)) {
+    return crossTabulate(request, { index: 1, count: 1 });
+  }
+  const located = locateTable(request.text, {
+    format: request.format,
+    line: request.line,
+    selection: request.selection,
+    tableIndex: request.tableIndex,
+  });
+  if (!located.ok) return located;
+  const origin: TableOrigin = { index: located.value.index, count: located.value.count };
+  if (request.columns || request.weight) {
+    return fail({
+      code: 'bad-option',
+      message: 'Choosing columns to cross-tabulate works on CSV or other delimited files, one row per observation; this table already holds counts.',
+    });
+  }
+  const read = readCountTable(located.value.grid);
+  if (!read.ok && read.issue.code === 'raw-data' && located.value.grid.format === 'delimited') {
+    return crossTabulate(request, origin);
+  }
+  if (!read.ok) return read;
+  return ok({ table: read.value, origin });
+}
+
+function crossTabulate(request: AnalyzeRequest, origin: TableOrigin): Result<{ table: CountTable; origin: TableOrigin }> {
+  const tabulated = crossTabulateText(request.text, { columns: request.columns, weight: request.weight });
+  if (!tabulated.ok) return tabulated;
+  const { columnsUsed, weightColumn, rowsRead, rowsSkipped, ...table } = tabulated.value;
+  return ok({ table, origin: { ...origin, crossTabulation: { columns: columnsUsed, weightColumn, rowsRead, rowsSkipped } } });
+}
+
+/** Which row or column, if any, holds expected counts (a 2×k or k×2 table with one labelled "Expected"). */
+function findExpectedLine(table: CountTable): { dimension: 'row' | 'column'; index: number } | undefined {
+  const label = (text: string) => EXPECTED_LABEL.test(text.trim());
+  if (table.rowLabels.length === 2) {
+    const index = table.rowLabels.findIndex(label);
+    if (index >= 0) return { dimension: 'row', index };
+  }
+  if (table.columnLabels.length === 2) {
+    const index = table.columnLabels.findIndex(label);
+    if (index >= 0) return { dimension: 'column', index };
+  }
+  return undefined;
+}
+
+/** Reduce a table with an "Expected" row/column to its observed vector, labels and expected counts. */
+function splitExpected(table: CountTable, where: { dimension: 'row' | 'column'; index: number }): { table: CountTable; expected: number[] } {
+  const keep = 1 - where.index;
+  if (where.dimension === 'row') {
+    return {
+      expected: table.observed[where.index],
+      table: {
+        ...table,
+        rowLabels: [table.rowLabels[keep]],
+        observed: [table.observed[keep]],
+        cellLocations: table.cellLocations ? [table.cellLocations[keep]] : undefined,
+      },
+    };
+  }
+  return {
+    expected: table.observed.map((row) => row[where.index]),
+    table: {
+      ...table,
+      columnLabels: [table.columnLabels[keep]],
+      observed: table.observed.map((row) => [row[keep]]),
+      cellLocations: table.cellLocations?.map((row) => [row[keep]]),
+    },
+  };
+}
+
+/** Run the right test on a table that is already read (the CLI's streaming path enters here too). */
+export function analyzeCountTable(
+  inputTable: CountTable,
+  origin: TableOrigin,
+  fit: string | undefined,
+  options: AnalyzeOptions,
+): Result<Analysis> {
+  let table = inputTable;
+  let fitRequest: FitRequest | undefined;
+  const expectedLine = findExpectedLine(table);
+  if (expectedLine && fit === undefined) {
+    const split = splitExpected(table, expectedLine);
+    table = split.table;
+    fitRequest = { kind: 'expected-counts', counts: split.expected };
+  }
+  const isVector = table.rowLabels.length === 1 || table.columnLabels.length === 1;
+  if (!fitRequest && (isVector || fit !== undefined)) {
+    if (!isVector) {
+      const location = { line: table.startLine, column: 1 };
+      return fail({
+        code: 'bad-option',
+        message: `${describeLocation(location)}: a goodness-of-fit test needs a single row or a single column of counts; this table is ${table.rowLabels.length}×${table.columnLabels.length}. Select one row or column, or drop the expected proportions to test independence.`,
+        location,
+      });
+    }
+    const labels = table.rowLabels.length === 1 ? table.columnLabels : table.rowLabels;
+    const spec = parseFitSpec(fit ?? 'equal', labels.length);
+    if (!spec.ok) return spec;
+    const built = buildFitRequest(spec.value, labels);
+    if (!built.ok) return built;
+    fitRequest = built.value;
+  }
+  const result = runTest(table, fitRequest, options);
+  if (!result.ok) return result;
+  const warnings: Issue[] = [...table.warnings];
+  if (!result.value.validity.ok) {
+    const location = { line: table.startLine, column: 1 };
+    warnings.push({
+      code: 'validity',
+      message: `${describeLocation(location)}: Cochran's rule is not met: ${result.value.validity.cellsBelow5} of ${result.value.validity.cellCount} expected counts are below 5 (smallest ${result.value.validity.minExpected.toFixed(2)}). Merge sparse categories or use an exact test.`,
+      location,
+    });
+  }
+  return ok({
+    table,
+    origin,
+    result: result.value,
+    warnings,
+    writeUp: writeUp(result.value, table, options),
+    expectedTable: expectedCountsTable(result.value, table, options),
+    contributionsTable: contributionsTable(result.value, table, options),
+    options,
+  });
+}
+
+function runTest(table: CountTable, fitRequest: FitRequest | undefined, options: AnalyzeOptions): Result<TestResult> {
+  const testOptions = { ...options, rowsOrdered: table.rowsOrdered, columnsOrdered: table.columnsOrdered };
+  if (fitRequest) {
+    const observed = table.observed.flat();
+    const alongRow = table.rowLabels.length === 1;
+    return testGoodnessOfFit(observed, fitRequest, {
+      ...testOptions,
+      labels: alongRow ? table.columnLabels : table.rowLabels,
+      ordered: alongRow ? table.columnsOrdered : table.rowsOrdered,
+      categoriesAlong: alongRow ? 'columns' : 'rows',
+    });
+  }
+  const result = testIndependence(table.observed, testOptions);
+  if (!result.validity.ok) {
+    const merge = proposeMerge(table.observed, { rows: table.rowLabels, columns: table.columnLabels }, testOptions);
+    if (merge) return ok({ ...result, mergeProposal: merge });
+  }
+  return ok(result);
+}

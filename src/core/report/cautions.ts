@@ -1,0 +1,46 @@
+import type { ReportOptions } from '../analysis';
+import type { MergeProposal, ValidityCheck } from '../types';
+import { formatFixed, formatPercent } from './formatNumber';
+import { joinPhrases } from './describe';
+import { chiSquarePhrase } from './statisticPhrase';
+
+/**
+ * What every chi-square write-up must say about what the test does not show (house rule):
+ * association is not cause, observations must be independent, counts not percentages, and
+ * health or safety decisions go through validated procedures.
+ */
+export function cautionSentences(kind: 'independence' | 'goodness-of-fit'): string {
+  const first = kind === 'independence'
+    ? 'An association in counts is not evidence of cause.'
+    : 'A good fit does not prove the expected pattern holds; it only fails to contradict it.';
+  return `${first} The test assumes each observation was counted once, in one cell, independently of the others, and it applies to counts, not percentages. ` +
+    'For decisions about health or safety, follow your organisation\'s validated procedures and consult a qualified statistician.';
+}
+
+/** Cochran's rule in words, with what was done about a failure. */
+export function validitySentences(
+  validity: ValidityCheck,
+  merge: MergeProposal | undefined,
+  n: number,
+  report: Pick<ReportOptions, 'decimals' | 'markup'>,
+): string {
+  const smallest = formatFixed(validity.minExpected, validity.minExpected < 10 ? 1 : 0);
+  if (validity.ok) {
+    if (validity.cellsBelow5 === 0) {
+      return `All expected counts were at least 5 (smallest ${smallest}), so the chi-square approximation is adequate by Cochran's rule.`;
+    }
+    return `${validity.cellsBelow5} of ${validity.cellCount} expected counts ${validity.cellsBelow5 === 1 ? 'was' : 'were'} below 5 (smallest ${smallest}), within Cochran's rule (none below 1, at most 20% below 5), so the chi-square approximation is adequate.`;
+  }
+  const parts = [`${validity.cellsBelow5} of ${validity.cellCount} cells (${formatPercent(validity.shareBelow5)}) had expected counts below 5`];
+  if (validity.cellsBelow1 > 0) parts.push(`${validity.cellsBelow1} below 1`);
+  let text = `${joinPhrases(parts)} (smallest ${smallest}), so Cochran's rule is not met and the chi-square p-value may be inaccurate.`;
+  if (merge) {
+    const merged = merge.groups.filter((g) => g.length > 1).map((g) => g.join(' + '));
+    const what = `merging ${joinPhrases(merged)} (${merge.dimension})`;
+    text += merge.passes
+      ? ` After ${what}, the table meets the rule: ${chiSquarePhrase(merge.statistic, merge.df, n, merge.p, report)}.`
+      : ` Even after ${what} the rule is not met (${chiSquarePhrase(merge.statistic, merge.df, n, merge.p, report)}).`;
+  }
+  text += ' An exact test is the other remedy.';
+  return text;
+}

@@ -1,0 +1,35 @@
+import type { ReportOptions } from '../analysis';
+import { formatFixed, formatNoLeadingZero, formatPValue } from './formatNumber';
+import { symbol } from './describe';
+
+/**
+ * The result in standard reporting form: "χ²(3, N = 412) = 11.27, p = .010".
+ * Standard notation for the chi-square family (common practice).
+ */
+export function chiSquarePhrase(
+  statistic: number,
+  df: number,
+  n: number,
+  p: number,
+  report: Pick<ReportOptions, 'decimals' | 'markup'>,
+  name = 'χ²',
+): string {
+  const N = symbol('N', report.markup);
+  const P = symbol('p', report.markup);
+  const pText = formatPValue(p).replace(/^p/, P);
+  return `${name}(${df}, ${N} = ${n.toLocaleString('en-US')}) = ${formatFixed(statistic, report.decimals)}, ${pText}`;
+}
+
+/** "Cramér's V = .15, 95% CI [.06, .20]" */
+export function intervalPhrase(
+  name: string,
+  estimate: number,
+  lower: number,
+  upper: number,
+  level: number,
+  decimals: number,
+  bounded: boolean,
+): string {
+  const format = bounded ? formatNoLeadingZero : formatFixed;
+  return `${name} = ${format(estimate, decimals)}, ${Math.round(level * 100)}% CI [${format(lower, decimals)}, ${format(upper, decimals)}]`;
+}
