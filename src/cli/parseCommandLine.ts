@@ -1,6 +1,7 @@
 import { parseArgs } from 'node:util';
 import type { AnalyzeOptions } from '../core/analysis';
 import type { DocumentFormat } from '../core/analyze';
+import { DEFAULT_SEED, type PValueMethod } from '../core/exact/choosePValue';
 
 export interface AnalyzeCommand {
   kind: 'analyze';
@@ -45,6 +46,11 @@ Numbers and wording:
   --alpha X           significance level (default 0.05)
   --confidence X      confidence level for intervals (default 0.95)
   --yates             apply Yates' continuity correction to 2×2 tables (default: off, reported beside)
+  --p-value M         auto | exact | monte-carlo | asymptotic (default auto: exact when
+                      Cochran's rule fails, Monte Carlo when the exact search is too big)
+  --replicates R      Monte Carlo replicates (default 45,999: p near .05 to about ±.002)
+  --seed S            Monte Carlo seed (default ${DEFAULT_SEED}; reported with the result)
+  --exact-time MS     time limit for an exact search before Monte Carlo takes over (default 5000)
   --decimals N        decimals for statistics (default 2)
   --one-line          a one-line result instead of the paragraph
   --plain             plain text write-up (no Markdown emphasis)
@@ -84,6 +90,10 @@ export function parseCommandLine(argv: string[]): Parsed {
         confidence: { type: 'string' },
         yates: { type: 'boolean' },
         decimals: { type: 'string' },
+        'p-value': { type: 'string' },
+        replicates: { type: 'string' },
+        seed: { type: 'string' },
+        'exact-time': { type: 'string' },
         'one-line': { type: 'boolean' },
         plain: { type: 'boolean' },
         json: { type: 'boolean' },
@@ -108,6 +118,9 @@ export function parseCommandLine(argv: string[]): Parsed {
     alpha: parseNumber('alpha', values.alpha),
     confidence: parseNumber('confidence', values.confidence),
     decimals: parseNumber('decimals', values.decimals),
+    replicates: parseWhole('replicates', values.replicates),
+    seed: parseNumber('seed', values.seed),
+    exactTime: parseNumber('exact-time', values['exact-time']),
   };
   for (const value of Object.values(numbers)) if (typeof value === 'string') return { ok: false, message: value };
 
@@ -135,6 +148,16 @@ export function parseCommandLine(argv: string[]): Parsed {
   if (typeof numbers.alpha === 'number') options.alpha = numbers.alpha;
   if (typeof numbers.confidence === 'number') options.confidenceLevel = numbers.confidence;
   if (typeof numbers.decimals === 'number') options.decimals = numbers.decimals;
+  if (typeof numbers.replicates === 'number') options.replicates = numbers.replicates;
+  if (typeof numbers.seed === 'number') options.seed = numbers.seed;
+  if (typeof numbers.exactTime === 'number') options.exactTimeMs = numbers.exactTime;
+  const method = values['p-value'];
+  if (method !== undefined) {
+    if (!['auto', 'exact', 'monte-carlo', 'asymptotic'].includes(method)) {
+      return { ok: false, message: `--p-value must be auto, exact, monte-carlo or asymptotic (got "${method}").` };
+    }
+    options.pValueMethod = method as PValueMethod;
+  }
   if (values.yates) options.continuity = 'yates';
   if (values['one-line']) options.style = 'line';
   if (values.plain) options.markup = 'plain';

@@ -2,6 +2,7 @@ import * as fs from 'node:fs';
 import * as path from 'node:path';
 import { analyze, analyzeCountTable, type AnalyzeRequest, type DocumentFormat } from '../core/analyze';
 import type { Analysis } from '../core/analysis';
+import type { SearchControl } from '../core/exact/choosePValue';
 import { resolveOptions } from '../core/options';
 import { createCrossTabulator } from '../core/table/crossTabulate';
 import type { Issue, Result } from '../core/types';
@@ -43,7 +44,7 @@ async function streamRawData(command: AnalyzeCommand): Promise<Result<Analysis>>
   const tabulated = tabulator.finish();
   if (!tabulated.ok) return tabulated;
   const { columnsUsed, weightColumn, rowsRead, rowsSkipped, ...table } = tabulated.value;
-  return analyzeCountTable(table, { index: 1, count: 1, crossTabulation: { columns: columnsUsed, weightColumn, rowsRead, rowsSkipped } }, command.fit, options.value);
+  return analyzeCountTable(table, { index: 1, count: 1, crossTabulation: { columns: columnsUsed, weightColumn, rowsRead, rowsSkipped } }, command.fit, options.value, terminalProgress());
 }
 
 function shouldStream(command: AnalyzeCommand, format: DocumentFormat): boolean {
@@ -53,6 +54,19 @@ function shouldStream(command: AnalyzeCommand, format: DocumentFormat): boolean 
   } catch {
     return false;
   }
+}
+
+/** Progress of long exact or Monte Carlo searches on stderr, only when a person is watching a terminal. */
+function terminalProgress(): SearchControl {
+  if (!process.stderr.isTTY) return {};
+  let shown = false;
+  return {
+    onProgress: (fraction: number) => {
+      shown = true;
+      process.stderr.write(`\r  computing the exact or simulated p-value: ${Math.round(fraction * 100)}%   `);
+      if (fraction >= 1 && shown) process.stderr.write('\r' + ' '.repeat(60) + '\r');
+    },
+  };
 }
 
 export async function runAnalyze(command: AnalyzeCommand): Promise<Result<Analysis>> {
@@ -70,6 +84,7 @@ export async function runAnalyze(command: AnalyzeCommand): Promise<Result<Analys
     columns: command.columns,
     weight: command.weight,
     options: command.options,
+    control: terminalProgress(),
   };
   return analyze(request);
 }

@@ -1,3 +1,4 @@
+import type { ChosenPValue, PValueOptions } from './exact/choosePValue';
 import type { TestOptions, TestResult } from './stats/types';
 import type { CountTable, Issue } from './types';
 
@@ -11,7 +12,7 @@ export interface ReportOptions {
 
 export const DEFAULT_REPORT_OPTIONS: ReportOptions = { decimals: 2, style: 'paragraph', markup: 'markdown' };
 
-export type AnalyzeOptions = TestOptions & ReportOptions;
+export type AnalyzeOptions = TestOptions & ReportOptions & PValueOptions;
 
 /** Where the table came from and how it was chosen. */
 export interface TableOrigin {
@@ -33,6 +34,13 @@ export interface Analysis {
   table: CountTable;
   origin: TableOrigin;
   result: TestResult;
+  /**
+   * The exact or Monte Carlo p that leads the result when Cochran's rule fails (or when asked);
+   * absent when the asymptotic p leads.
+   */
+  exact?: ChosenPValue;
+  /** Why no exact p was computed although the rule failed (e.g. a fitted distribution). */
+  exactNote?: string;
   /** Reading notes, totals mismatches, validity problems: each with a location where there is one. */
   warnings: Issue[];
   writeUp: string;

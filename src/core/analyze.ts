@@ -1,4 +1,5 @@
 import type { Analysis, AnalyzeOptions, TableOrigin } from './analysis';
+import { choosePValue, type SearchControl } from './exact/choosePValue';
 import { resolveOptions } from './options';
 import { contributionsTable, expectedCountsTable } from './report/markdownTables';
 import { writeUp } from './report/writeUp';
@@ -33,6 +34,8 @@ export interface AnalyzeRequest {
   columns?: [string, string];
   weight?: string;
   options?: Partial<AnalyzeOptions>;
+  /** Cancellation and progress for exact and Monte Carlo searches. */
+  control?: SearchControl;
 }
 
 /** Labels that mark a row or column of expected counts to test the other one against. */
@@ -47,7 +50,7 @@ export function analyze(request: AnalyzeRequest): Result<Analysis> {
   if (!options.ok) return options;
   const table = readTable(request);
   if (!table.ok) return table;
-  return analyzeCountTable(table.value.table, table.value.origin, request.fit, options.value);
+  return analyzeCountTable(table.value.table, table.value.origin, request.fit, options.value, request.control);
 }
 
 function readTable(request: AnalyzeRequest): Result<{ table: CountTable; origin: TableOrigin }> {
@@ -128,6 +131,7 @@ export function analyzeCountTable(
   origin: TableOrigin,
   fit: string | undefined,
   options: AnalyzeOptions,
+  control: SearchControl = {},
 ): Result<Analysis> {
   let table = inputTable;
   let fitRequest: FitRequest | undefined;
@@ -156,12 +160,19 @@ export function analyzeCountTable(
   }
   const result = runTest(table, fitRequest, options);
   if (!result.ok) return result;
+  const choice = choosePValue(result.value, table.observed, options, control);
+  if (choice.kind === 'cancelled') {
+    return fail({ code: 'cancelled', message: 'The exact or simulated test was cancelled; nothing was changed.' });
+  }
+  const exact = choice.kind === 'computed' ? choice.value : undefined;
+  const exactNote = choice.kind === 'asymptotic' ? choice.reason : undefined;
   const warnings: Issue[] = [...table.warnings];
   if (!result.value.validity.ok) {
     const location = { line: table.startLine, column: 1 };
+    const remedy = exact ? `${exact.reason}` : 'Merge sparse categories or use an exact test.';
     warnings.push({
       code: 'validity',
-      message: `${describeLocation(location)}: Cochran's rule is not met: ${result.value.validity.cellsBelow5} of ${result.value.validity.cellCount} expected counts are below 5 (smallest ${result.value.validity.minExpected.toFixed(2)}). Merge sparse categories or use an exact test.`,
+      message: `${describeLocation(location)}: Cochran's rule is not met: ${result.value.validity.cellsBelow5} of ${result.value.validity.cellCount} expected counts are below 5 (smallest ${result.value.validity.minExpected.toFixed(2)}). ${remedy}`,
       location,
     });
   }
@@ -169,8 +180,10 @@ export function analyzeCountTable(
     table,
     origin,
     result: result.value,
+    exact,
+    exactNote,
     warnings,
-    writeUp: writeUp(result.value, table, options),
+    writeUp: writeUp(result.value, table, options, exact, exactNote),
     expectedTable: expectedCountsTable(result.value, table, options),
     contributionsTable: contributionsTable(result.value, table, options),
     options,

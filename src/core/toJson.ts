@@ -17,6 +17,22 @@ export function toJson(analysis: Analysis): Record<string, unknown> {
     gTest: result.g,
     validity: result.validity,
     mergeProposal: result.mergeProposal ?? null,
+    exact: analysis.exact
+      ? {
+        method: analysis.exact.method,
+        p: analysis.exact.p,
+        log10p: analysis.exact.log10p,
+        replicates: analysis.exact.replicates ?? null,
+        seed: analysis.exact.seed ?? null,
+        interval: analysis.exact.interval ?? null,
+        elapsedMs: analysis.exact.elapsedMs,
+        reason: analysis.exact.reason,
+        exactStoppedBy: analysis.exact.exactStoppedBy ?? null,
+        pLess: analysis.exact.pLess ?? null,
+        pGreater: analysis.exact.pGreater ?? null,
+      }
+      : null,
+    exactNote: analysis.exactNote ?? null,
     warnings: analysis.warnings.map((w) => ({ code: w.code, message: w.message, location: w.location ?? null })),
     writeUp: analysis.writeUp,
     expectedTable: analysis.expectedTable,
@@ -38,6 +54,7 @@ export function toJson(analysis: Analysis): Record<string, unknown> {
       alpha: analysis.options.alpha,
       confidenceLevel: analysis.options.confidenceLevel,
       continuity: analysis.options.continuity,
+      pValueMethod: analysis.options.pValueMethod,
     },
   };
   if (result.test === 'independence') {

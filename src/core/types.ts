@@ -44,7 +44,8 @@ export type IssueCode =
   | 'validity'
   | 'sparse-fit'
   | 'rescaled-expected'
-  | 'unreadable';
+  | 'unreadable'
+  | 'cancelled';
 
 export interface Issue {
   code: IssueCode;

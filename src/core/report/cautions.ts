@@ -1,4 +1,5 @@
 import type { ReportOptions } from '../analysis';
+import type { ChosenPValue } from '../exact/choosePValue';
 import type { MergeProposal, ValidityCheck } from '../types';
 import { formatFixed, formatPercent } from './formatNumber';
 import { joinPhrases } from './describe';
@@ -23,17 +24,25 @@ export function validitySentences(
   merge: MergeProposal | undefined,
   n: number,
   report: Pick<ReportOptions, 'decimals' | 'markup'>,
+  exact?: ChosenPValue,
+  exactNote?: string,
 ): string {
   const smallest = formatFixed(validity.minExpected, validity.minExpected < 10 ? 1 : 0);
+  const exactSentence = exact ? ` ${exact.reason}` : '';
   if (validity.ok) {
     if (validity.cellsBelow5 === 0) {
-      return `All expected counts were at least 5 (smallest ${smallest}), so the chi-square approximation is adequate by Cochran's rule.`;
+      return `All expected counts were at least 5 (smallest ${smallest}), so the chi-square approximation is adequate by Cochran's rule.${exactSentence}`;
     }
-    return `${validity.cellsBelow5} of ${validity.cellCount} expected counts ${validity.cellsBelow5 === 1 ? 'was' : 'were'} below 5 (smallest ${smallest}), within Cochran's rule (none below 1, at most 20% below 5), so the chi-square approximation is adequate.`;
+    return `${validity.cellsBelow5} of ${validity.cellCount} expected counts ${validity.cellsBelow5 === 1 ? 'was' : 'were'} below 5 (smallest ${smallest}), within Cochran's rule (none below 1, at most 20% below 5), so the chi-square approximation is adequate.${exactSentence}`;
   }
-  const parts = [`${validity.cellsBelow5} of ${validity.cellCount} cells (${formatPercent(validity.shareBelow5)}) had expected counts below 5`];
-  if (validity.cellsBelow1 > 0) parts.push(`${validity.cellsBelow1} below 1`);
-  let text = `${joinPhrases(parts)} (smallest ${smallest}), so Cochran's rule is not met and the chi-square p-value may be inaccurate.`;
+  let text: string;
+  if (exact) {
+    text = `${exact.reason} Cochran's rule (no expected count below 1, at most 20% below 5) is not met here (smallest ${smallest}), so the chi-square p-value is not the one to report.`;
+  } else {
+    const parts = [`${validity.cellsBelow5} of ${validity.cellCount} cells (${formatPercent(validity.shareBelow5)}) had expected counts below 5`];
+    if (validity.cellsBelow1 > 0) parts.push(`${validity.cellsBelow1} below 1`);
+    text = `${joinPhrases(parts)} (smallest ${smallest}), so Cochran's rule is not met and the chi-square p-value may be inaccurate.`;
+  }
   if (merge) {
     const merged = merge.groups.filter((g) => g.length > 1).map((g) => g.join(' + '));
     const what = `merging ${joinPhrases(merged)} (${merge.dimension})`;
@@ -41,6 +50,6 @@ export function validitySentences(
       ? ` After ${what}, the table meets the rule: ${chiSquarePhrase(merge.statistic, merge.df, n, merge.p, report)}.`
       : ` Even after ${what} the rule is not met (${chiSquarePhrase(merge.statistic, merge.df, n, merge.p, report)}).`;
   }
-  text += ' An exact test is the other remedy.';
+  if (!exact) text += exactNote ? ` ${exactNote}` : ' An exact test is the other remedy.';
   return text;
 }

@@ -1,4 +1,5 @@
 import type { Analysis } from '../analysis';
+import { describePValueMethod } from '../exact/choosePValue';
 import { describeHypothesis } from './writeGoodnessOfFit';
 import { formatExactP, formatFixed, formatNoLeadingZero } from './formatNumber';
 import { renderTable } from './markdownTables';
@@ -40,6 +41,14 @@ export function statisticsLines(analysis: Analysis): string[] {
     lines.push(`Pearson χ² = ${formatFixed(result.statistic, d)}, p = ${p(result)}`);
     lines.push(`Likelihood ratio G² = ${formatFixed(result.g.statistic, d)}, p = ${p(result.g)}; with Williams' correction G² = ${formatFixed(result.g.corrected.statistic, d)}, p = ${p(result.g.corrected)}`);
     lines.push(`Cohen's w = ${formatNoLeadingZero(result.cohensW, d)}`);
+  }
+  const exact = analysis.exact;
+  if (exact) {
+    const interval = exact.interval ? ` (${Math.round(exact.interval.level * 100)}% simulation interval ${formatNoLeadingZero(exact.interval.lower, 4)} to ${formatNoLeadingZero(exact.interval.upper, 4)})` : '';
+    const sides = exact.pLess !== undefined && exact.pGreater !== undefined ? `; one-sided p ${formatExactP(exact.pLess, Math.log10(exact.pLess))} (lower), ${formatExactP(exact.pGreater, Math.log10(exact.pGreater))} (upper)` : '';
+    lines.push(`p used for the result = ${p(exact)}${interval}${sides}, ${describePValueMethod(exact.method)}, ${exact.elapsedMs.toFixed(exact.elapsedMs < 10 ? 2 : 0)} ms. ${exact.reason}`);
+  } else if (analysis.exactNote) {
+    lines.push(analysis.exactNote);
   }
   const validity = result.validity;
   lines.push(`Validity (Cochran 1954): ${validity.ok ? 'met' : 'NOT met'}; smallest expected ${formatFixed(validity.minExpected, 2)}, ${validity.cellsBelow5} of ${validity.cellCount} below 5, ${validity.cellsBelow1} below 1`);

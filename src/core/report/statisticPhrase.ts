@@ -1,4 +1,5 @@
 import type { ReportOptions } from '../analysis';
+import type { ChosenPValue } from '../exact/choosePValue';
 import { formatFixed, formatNoLeadingZero, formatPValue } from './formatNumber';
 import { symbol } from './describe';
 
@@ -32,4 +33,28 @@ export function intervalPhrase(
 ): string {
   const format = bounded ? formatNoLeadingZero : formatFixed;
   return `${name} = ${format(estimate, decimals)}, ${Math.round(level * 100)}% CI [${format(lower, decimals)}, ${format(upper, decimals)}]`;
+}
+
+/**
+ * The headline statistic with the p that leads: the asymptotic one, or the exact / Monte Carlo one
+ * named as such ("χ²(6, N = 50) = 16.17, exact p = .012").
+ */
+export function leadingChiSquarePhrase(
+  statistic: number,
+  df: number,
+  n: number,
+  asymptoticP: number,
+  exact: ChosenPValue | undefined,
+  report: Pick<ReportOptions, 'decimals' | 'markup'>,
+  name = 'χ²',
+): string {
+  if (!exact) return chiSquarePhrase(statistic, df, n, asymptoticP, report, name);
+  const N = symbol('N', report.markup);
+  const P = symbol('p', report.markup);
+  const simulated = exact.replicates !== undefined;
+  const pText = formatPValue(exact.p).replace(/^p/, P);
+  const interval = simulated && exact.interval
+    ? ` (${Math.round(exact.interval.level * 100)}% simulation interval ${formatNoLeadingZero(exact.interval.lower, 3)} to ${formatNoLeadingZero(exact.interval.upper, 3)})`
+    : '';
+  return `${name}(${df}, ${N} = ${n.toLocaleString('en-US')}) = ${formatFixed(statistic, report.decimals)}, ${simulated ? 'Monte Carlo' : 'exact'} ${pText}${interval}`;
 }

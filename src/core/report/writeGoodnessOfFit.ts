@@ -1,10 +1,11 @@
 import type { AnalyzeOptions, ReportOptions } from '../analysis';
+import type { ChosenPValue } from '../exact/choosePValue';
 import type { FitHypothesis, GoodnessOfFitResult } from '../stats/types';
 import type { CountTable } from '../types';
 import { cautionSentences, validitySentences } from './cautions';
 import { describeEffectSize, joinPhrases, listLabels, symbol } from './describe';
 import { formatFixed, formatNoLeadingZero, formatSigned } from './formatNumber';
-import { chiSquarePhrase } from './statisticPhrase';
+import { leadingChiSquarePhrase } from './statisticPhrase';
 
 const MAX_DRIVING_CATEGORIES = 3;
 
@@ -33,8 +34,8 @@ function labelsOf(table: CountTable): string[] {
 }
 
 /** "χ²(3, N = 556) = 0.47, p = .93, w = .03" */
-export function goodnessOfFitHeadline(result: GoodnessOfFitResult, report: ReportOptions): string {
-  return `${chiSquarePhrase(result.statistic, result.df, result.n, result.p, report)}, ${symbol('w', report.markup)} = ${formatNoLeadingZero(result.cohensW, report.decimals)}`;
+export function goodnessOfFitHeadline(result: GoodnessOfFitResult, report: ReportOptions, exact?: ChosenPValue): string {
+  return `${leadingChiSquarePhrase(result.statistic, result.df, result.n, result.p, exact, report)}, ${symbol('w', report.markup)} = ${formatNoLeadingZero(result.cohensW, report.decimals)}`;
 }
 
 function drivingCategories(result: GoodnessOfFitResult, labels: string[], observed: number[], report: ReportOptions): string {
@@ -50,14 +51,20 @@ function drivingCategories(result: GoodnessOfFitResult, labels: string[], observ
 }
 
 /** The plain-language paragraph for a goodness-of-fit test. */
-export function writeGoodnessOfFit(result: GoodnessOfFitResult, table: CountTable, report: AnalyzeOptions): string {
-  const headline = goodnessOfFitHeadline(result, report);
+export function writeGoodnessOfFit(
+  result: GoodnessOfFitResult,
+  table: CountTable,
+  report: AnalyzeOptions,
+  exact?: ChosenPValue,
+  exactNote?: string,
+): string {
+  const headline = goodnessOfFitHeadline(result, report, exact);
   if (report.style === 'line') {
     return `${headline}; Cochran's rule ${result.validity.ok ? 'met' : 'not met'}.`;
   }
   const labels = labelsOf(table);
   const hypothesis = describeHypothesis(result.hypothesis, report.decimals);
-  const significant = result.p < report.alpha;
+  const significant = (exact?.p ?? result.p) < report.alpha;
   const parts: string[] = [];
   parts.push(`We tested whether the counts in ${listLabels(labels, 'categories')} (${symbol('N', report.markup)} = ${result.n.toLocaleString('en-US')} observations) fit ${hypothesis}.`);
   if (result.estimatedParameters > 0) {
@@ -68,7 +75,7 @@ export function writeGoodnessOfFit(result: GoodnessOfFitResult, table: CountTabl
     : `The counts are consistent with it: ${headline}.`);
   if (significant) parts.push(drivingCategories(result, labels, table.observed.flat(), report));
   parts.push(`The departure from the expected pattern is ${describeEffectSize(result.cohensW)}.`);
-  parts.push(validitySentences(result.validity, result.mergeProposal, result.n, report));
+  parts.push(validitySentences(result.validity, result.mergeProposal, result.n, report, exact, exactNote));
   parts.push(cautionSentences('goodness-of-fit'));
   return parts.join(' ');
 }

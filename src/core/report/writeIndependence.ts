@@ -1,19 +1,20 @@
 import type { AnalyzeOptions, ReportOptions } from '../analysis';
+import type { ChosenPValue } from '../exact/choosePValue';
 import type { IndependenceResult } from '../stats/types';
 import type { CountTable } from '../types';
 import { cautionSentences, validitySentences } from './cautions';
 import { describeEffectSize, joinPhrases, listLabels, symbol } from './describe';
 import { formatFixed, formatNoLeadingZero, formatSigned } from './formatNumber';
-import { chiSquarePhrase, intervalPhrase } from './statisticPhrase';
+import { chiSquarePhrase, intervalPhrase, leadingChiSquarePhrase } from './statisticPhrase';
 
 /** The most cells a write-up names as driving the result; the panel lists them all. */
 const MAX_DRIVING_CELLS = 3;
 
 /** "χ²(6, N = 412) = 18.40, p = .005, Cramér's V = .15, 95% CI [.06, .20]" */
-export function independenceHeadline(result: IndependenceResult, report: ReportOptions): string {
+export function independenceHeadline(result: IndependenceResult, report: ReportOptions, exact?: ChosenPValue): string {
   const v = result.effect.cramersVInterval;
   const name = result.continuityCorrected ? 'χ²ᵧ' : 'χ²';
-  return `${chiSquarePhrase(result.statistic, result.df, result.n, result.p, report, name)}, ` +
+  return `${leadingChiSquarePhrase(result.statistic, result.df, result.n, result.p, exact, report, name)}, ` +
     intervalPhrase(`Cramér's ${symbol('V', report.markup)}`, result.effect.cramersV, v.lower, v.upper, v.level, report.decimals, true);
 }
 
@@ -56,9 +57,15 @@ function continuitySentence(result: IndependenceResult, report: ReportOptions): 
 }
 
 /** The plain-language paragraph for an r×c test of independence or homogeneity. */
-export function writeIndependence(result: IndependenceResult, table: CountTable, report: AnalyzeOptions): string {
-  const headline = independenceHeadline(result, report);
-  const significant = result.p < report.alpha;
+export function writeIndependence(
+  result: IndependenceResult,
+  table: CountTable,
+  report: AnalyzeOptions,
+  exact?: ChosenPValue,
+  exactNote?: string,
+): string {
+  const headline = independenceHeadline(result, report, exact);
+  const significant = (exact?.p ?? result.p) < report.alpha;
   if (report.style === 'line') {
     const validity = result.validity.ok ? 'Cochran\'s rule met' : 'Cochran\'s rule not met';
     return `${headline}; ${validity}.`;
@@ -77,7 +84,7 @@ export function writeIndependence(result: IndependenceResult, table: CountTable,
   if (twoByTwo) parts.push(twoByTwo);
   const continuity = continuitySentence(result, report);
   if (continuity) parts.push(continuity);
-  parts.push(validitySentences(result.validity, result.mergeProposal, result.n, report));
+  parts.push(validitySentences(result.validity, result.mergeProposal, result.n, report, exact, exactNote));
   parts.push(cautionSentences('independence'));
   return parts.join(' ');
 }
