@@ -23,6 +23,14 @@ await Promise.all([
   }),
   esbuild.build({
     ...common,
+    entryPoints: ['src/extension/analysisWorker.ts'],
+    outfile: 'dist/analysisWorker.js',
+    platform: 'node',
+    format: 'cjs',
+    target: 'node20',
+  }),
+  esbuild.build({
+    ...common,
     entryPoints: ['src/webview/main.ts'],
     outfile: 'dist/webview.js',
     platform: 'browser',

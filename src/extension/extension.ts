@@ -1,9 +1,9 @@
 // Wiring only: the first, small editor entry over the engine. The full panel, CodeLens and
 // insertion workflow are built in src/extension as the extension issue lands.
 import * as vscode from 'vscode';
-import { analyze } from '../core/analyze';
 import { resultsReport } from '../core/report/resultsReport';
 import { documentFormat } from './documentFormat';
+import { runAnalysisInWorker } from './runAnalysisInWorker';
 
 const INSERT_ACTION = 'Insert write-up below the table';
 
@@ -19,12 +19,29 @@ export function activate(context: vscode.ExtensionContext): void {
     const document = editor.document;
     const versionAtAnalysis = document.version;
     const selection = editor.selection;
-    const result = analyze({
+    const request = {
       text: document.getText(),
       format: documentFormat(document.languageId, document.fileName),
       line: selection.active.line + 1,
       selection: selection.isEmpty ? undefined : { startLine: selection.start.line + 1, endLine: selection.end.line + 1 },
-    });
+    };
+    // Exact searches can take seconds: they run in a worker thread, with progress and a Cancel button.
+    const result = await vscode.window.withProgress(
+      { location: vscode.ProgressLocation.Notification, title: 'Tallywise: testing the table', cancellable: true },
+      (progress, token) => {
+        const controller = new AbortController();
+        token.onCancellationRequested(() => controller.abort());
+        let reported = 0;
+        return runAnalysisInWorker(context.asAbsolutePath('dist/analysisWorker.js'), request, {
+          signal: controller.signal,
+          onProgress: (fraction) => {
+            const percent = Math.round(fraction * 100);
+            if (percent > reported) progress.report({ increment: percent - reported, message: `${percent}%` });
+            reported = Math.max(reported, percent);
+          },
+        });
+      },
+    );
     if (!result.ok) {
       void vscode.window.showWarningMessage(`Tallywise: ${result.issue.message}`);
       return;

@@ -87,10 +87,12 @@ export function choosePValue(
   const why = method === 'auto' ? `Because ${sparseReason(result)}` : 'As requested';
   const budget: Partial<Budget> = { ...control, timeMs: options.exactTimeMs };
   const replicates = options.replicates > 0 ? options.replicates : monteCarloDefaultReplicates();
+  // A simulation of a bounded number of replicates always ends, so only cancellation stops it.
+  const simulationBudget: Partial<Budget> = { ...control, timeMs: Number.POSITIVE_INFINITY };
   const simulate = (stoppedBy?: 'time' | 'memory'): PValueChoice => {
     const simulated: Computed<ExactPValue> = result.test === 'independence'
-      ? monteCarloIndependence(observed, { replicates, seed: options.seed, budget: control })
-      : monteCarloGoodnessOfFit(observed.flat(), result.expectedProportions, { replicates, seed: options.seed, budget: control });
+      ? monteCarloIndependence(observed, { replicates, seed: options.seed, budget: simulationBudget })
+      : monteCarloGoodnessOfFit(observed.flat(), result.expectedProportions, { replicates, seed: options.seed, budget: simulationBudget });
     if (!simulated.ok) return { kind: 'cancelled' };
     const handover = stoppedBy ? `, and because the exact search would pass its ${stoppedBy === 'time' ? 'time' : 'memory'} limit` : '';
     return {

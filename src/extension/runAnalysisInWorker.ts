@@ -1,0 +1,50 @@
+import { Worker } from 'node:worker_threads';
+import type { Analysis } from '../core/analysis';
+import { CANCEL_INDEX, type JobToWorker, type WorkerToJob } from '../core/analysisJob';
+import type { AnalyzeRequest } from '../core/analyze';
+import type { Result } from '../core/types';
+
+/** How long a cancelled search may take to notice before the worker is stopped outright. */
+const CANCEL_GRACE_MS = 2000;
+
+export interface JobHooks {
+  onProgress?: (fraction: number) => void;
+  /** Aborting sets the shared cancel flag; the search stops at its next check (about every 50 ms). */
+  signal?: AbortSignal;
+}
+
+/**
+ * Runs `analyze` in a worker thread (the bundled dist/analysisWorker.js) and resolves with its result.
+ * Never rejects for user input: a crashed worker becomes an Issue.
+ */
+export function runAnalysisInWorker(workerFile: string, request: Omit<AnalyzeRequest, 'control'>, hooks: JobHooks = {}): Promise<Result<Analysis>> {
+  return new Promise((resolve) => {
+    const cancelFlag = new SharedArrayBuffer(Int32Array.BYTES_PER_ELEMENT);
+    const flag = new Int32Array(cancelFlag);
+    const worker = new Worker(workerFile);
+    let settled = false;
+    let graceTimer: NodeJS.Timeout | undefined;
+    const finish = (result: Result<Analysis>) => {
+      if (settled) return;
+      settled = true;
+      if (graceTimer) clearTimeout(graceTimer);
+      hooks.signal?.removeEventListener('abort', onAbort);
+      void worker.terminate();
+      resolve(result);
+    };
+    const onAbort = () => {
+      Atomics.store(flag, CANCEL_INDEX, 1);
+      graceTimer = setTimeout(() => finish({ ok: false, issue: { code: 'cancelled', message: 'The analysis was cancelled; nothing was changed.' } }), CANCEL_GRACE_MS);
+    };
+    hooks.signal?.addEventListener('abort', onAbort);
+    worker.on('message', (message: WorkerToJob) => {
+      if (message.type === 'progress') hooks.onProgress?.(message.fraction);
+      else finish(message.result);
+    });
+    worker.on('error', (error) => finish({ ok: false, issue: { code: 'unreadable', message: `The analysis stopped unexpectedly (${error.message}). Please report it with the table.` } }));
+    worker.on('exit', () => finish({ ok: false, issue: { code: 'cancelled', message: 'The analysis stopped before it finished; nothing was changed.' } }));
+    const job: JobToWorker = { type: 'analyze', request, cancelFlag };
+    worker.postMessage(job);
+    if (hooks.signal?.aborted) onAbort();
+  });
+}

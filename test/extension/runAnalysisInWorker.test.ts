@@ -1,0 +1,50 @@
+import assert from 'node:assert/strict';
+import * as path from 'node:path';
+import { analyze, type AnalyzeRequest } from '../../src/core/analyze';
+import { runAnalysisInWorker } from '../../src/extension/runAnalysisInWorker';
+
+// Runs the bundled worker (dist/analysisWorker.js, built by `npm test` before mocha) in a real thread.
+const workerFile = path.resolve(__dirname, '..', '..', '..', 'dist', 'analysisWorker.js');
+
+function sparseTable(rows: number, columns: number): string {
+  const header = `| Site | ${Array.from({ length: columns }, (_, c) => `K${c + 1}`).join(' | ')} |`;
+  const rule = `|---|${Array.from({ length: columns }, () => '---').join('|')}|`;
+  const body = Array.from({ length: rows }, (_, r) => `| S${r + 1} | ${Array.from({ length: columns }, (_, c) => ((r * 7 + c * 3) % 5) + 1).join(' | ')} |`);
+  return [header, rule, ...body].join('\n');
+}
+
+describe('runAnalysisInWorker', () => {
+  it('returns the same analysis as the engine run in this thread', async () => {
+    const request: AnalyzeRequest = { text: sparseTable(3, 4), format: 'markdown' };
+    const inWorker = await runAnalysisInWorker(workerFile, request);
+    const here = analyze(request);
+    assert.ok(inWorker.ok && here.ok);
+    if (!inWorker.ok || !here.ok) return;
+    assert.equal(inWorker.value.result.statistic, here.value.result.statistic);
+    assert.equal(inWorker.value.exact?.p, here.value.exact?.p);
+    assert.equal(inWorker.value.writeUp, here.value.writeUp);
+  });
+
+  it('reports progress and stops promptly when cancelled', async () => {
+    const controller = new AbortController();
+    const fractions: number[] = [];
+    const started = Date.now();
+    const request: AnalyzeRequest = {
+      text: sparseTable(10, 10),
+      format: 'markdown',
+      options: { pValueMethod: 'monte-carlo', replicates: 10_000_000 },
+    };
+    const result = await runAnalysisInWorker(workerFile, request, {
+      signal: controller.signal,
+      onProgress: (fraction) => {
+        fractions.push(fraction);
+        if (fractions.length === 2) controller.abort();
+      },
+    });
+    assert.equal(result.ok, false);
+    if (!result.ok) assert.equal(result.issue.code, 'cancelled');
+    assert.ok(fractions.length >= 2, 'progress was reported');
+    assert.ok(fractions.every((f) => f >= 0 && f <= 1));
+    assert.ok(Date.now() - started < 15_000, 'stopped long before 10 million replicates would finish');
+  });
+});
