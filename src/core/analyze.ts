@@ -142,6 +142,16 @@ export function analyzeCountTable(
     fitRequest = { kind: 'expected-counts', counts: split.expected };
   }
   const isVector = table.rowLabels.length === 1 || table.columnLabels.length === 1;
+  const dropped = table.warnings.find((w) => w.code === 'zero-row-dropped' || w.code === 'zero-column-dropped');
+  if (isVector && dropped && fit === undefined && !fitRequest) {
+    // Dropping an all-zero row left one row: a goodness-of-fit test now would answer another question.
+    const location = { line: table.startLine, column: 1 };
+    return fail({
+      code: 'too-few-categories',
+      message: `${describeLocation(location)}: after leaving out the all-zero ${dropped.code === 'zero-row-dropped' ? 'row' : 'column'}, only one ${table.rowLabels.length === 1 ? 'row' : 'column'} of counts is left, and comparing groups needs at least two. Add the missing counts, or give expected proportions (--fit) to test the remaining counts against them.`,
+      location,
+    });
+  }
   if (!fitRequest && (isVector || fit !== undefined)) {
     if (!isVector) {
       const location = { line: table.startLine, column: 1 };

@@ -65,6 +65,13 @@ describe('analyze', () => {
     assert.deepEqual(analysis.origin.crossTabulation?.columns, ['shift', 'station']);
   });
 
+  it('refuses to turn a two-row comparison into a goodness-of-fit test by dropping an all-zero row', () => {
+    const text = markdownTable(['Kiln', 'Cracked', 'Sound'], [['Old', 0, 0], ['New', 4, 40]]);
+    const result = analyze({ text, format: 'markdown' });
+    assert.equal(result.ok, false);
+    if (!result.ok) assert.match(result.issue.message, /only one row of counts is left/);
+  });
+
   it('rejects options no analysis can use', () => {
     const text = markdownTable(['', 'a', 'b'], [['x', 1, 2], ['y', 3, 4]]);
     for (const options of [{ alpha: 0 }, { alpha: 0.7 }, { confidenceLevel: 1 }, { decimals: 1.5 }]) {
