@@ -5,6 +5,8 @@ declare module 'jstat' {
     normal: { cdf(x: number, mean: number, sd: number): number; inv(p: number, mean: number, sd: number): number };
     poisson: { pdf(k: number, lambda: number): number; cdf(k: number, lambda: number): number };
     binomial: { pdf(k: number, n: number, p: number): number; cdf(k: number, n: number, p: number): number };
+    beta: { inv(p: number, alpha: number, beta: number): number; cdf(x: number, alpha: number, beta: number): number };
+    hypgeom: { pdf(k: number, population: number, successes: number, draws: number): number };
     gammaln(x: number): number;
     lowRegGamma(a: number, x: number): number;
   };

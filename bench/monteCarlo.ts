@@ -1,0 +1,75 @@
+/**
+ * Monte Carlo throughput: Patefield tables per second (sampler plus the probability criterion, as
+ * monteCarloIndependence runs it), the time for 9,999 replicates of large tables, and multinomial
+ * outcomes per second for goodness of fit. One thread; targets from the issue.
+ */
+import { monteCarloGoodnessOfFit } from '../src/core/exact/monteCarloGoodnessOfFit';
+import { monteCarloIndependence } from '../src/core/exact/monteCarloIndependence';
+import { medianMs, seededRandom, type Figure } from './timing';
+
+const SEED = 20240612;
+/** Tables simulated per timed call: enough that per-call set-up is a small share. */
+const REPLICATES_PER_CALL = 20_000;
+
+/** A rows × columns table of `total` observations spread unevenly by a seeded generator. */
+function randomTable(rows: number, columns: number, total: number, seed: number): number[][] {
+  const random = seededRandom(seed);
+  const rowWeights = Array.from({ length: rows }, () => 0.5 + random());
+  const columnWeights = Array.from({ length: columns }, () => 0.5 + random());
+  const weights = rowWeights.flatMap((r) => columnWeights.map((c) => r * c * (0.7 + 0.6 * random())));
+  const sum = weights.reduce((s, w) => s + w, 0);
+  const table = Array.from({ length: rows }, () => new Array<number>(columns).fill(0));
+  for (let n = 0; n < total; n++) {
+    let u = random() * sum;
+    let cell = 0;
+    while (u > weights[cell] && cell < weights.length - 1) u -= weights[cell++];
+    table[Math.floor(cell / columns)][cell % columns] += 1;
+  }
+  return table;
+}
+
+function tablesPerSecond(rows: number, columns: number, total: number): number {
+  const table = randomTable(rows, columns, total, SEED + rows * 100 + columns);
+  const ms = medianMs(() => {
+    const result = monteCarloIndependence(table, { replicates: REPLICATES_PER_CALL, seed: 1, budget: { timeMs: 60_000 } });
+    if (!result.ok) throw new Error(`benchmark run stopped: ${result.reason}`);
+  }, 1000);
+  return (REPLICATES_PER_CALL / ms) * 1000;
+}
+
+function msFor9999(rows: number, columns: number, total: number): number {
+  const table = randomTable(rows, columns, total, SEED + 7);
+  return medianMs(() => monteCarloIndependence(table, { replicates: 9_999, seed: 2, budget: { timeMs: 60_000 } }), 1000);
+}
+
+function outcomesPerSecond(categories: number, total: number): number {
+  const random = seededRandom(SEED + categories);
+  const proportions = Array.from({ length: categories }, () => 0.5 + random());
+  const observed = proportions.map((p) => Math.round((p / proportions.reduce((s, v) => s + v, 0)) * total));
+  const ms = medianMs(() => monteCarloGoodnessOfFit(observed, proportions, { replicates: REPLICATES_PER_CALL, seed: 3, budget: { timeMs: 60_000 } }), 1000);
+  return (REPLICATES_PER_CALL / ms) * 1000;
+}
+
+export function benchMonteCarlo(): Figure[] {
+  const figures: Figure[] = [];
+  for (const [rows, columns, total] of [
+    [2, 2, 100],
+    [3, 3, 300],
+    [4, 6, 500],
+    [5, 5, 200],
+    [5, 5, 1000],
+  ]) {
+    figures.push({ name: `Patefield ${rows}×${columns}, N = ${total}`, value: tablesPerSecond(rows, columns, total), unit: 'tables/s', target: { value: 300_000, better: 'higher' } });
+  }
+  figures.push({ name: 'Patefield 10×10, N = 1,000', value: tablesPerSecond(10, 10, 1000), unit: 'tables/s', target: { value: 80_000, better: 'higher' } });
+  for (const [rows, columns, total] of [
+    [10, 10, 1000],
+    [10, 10, 10_000],
+    [4, 25, 2000],
+  ]) {
+    figures.push({ name: `9,999 Patefield replicates, ${rows}×${columns}, N = ${total.toLocaleString('en')}`, value: msFor9999(rows, columns, total), unit: 'ms', target: { value: 200, better: 'lower' } });
+  }
+  figures.push({ name: 'multinomial outcomes, k = 6, N = 100', value: outcomesPerSecond(6, 100), unit: 'draws/s' });
+  figures.push({ name: 'multinomial outcomes, k = 20, N = 2,000', value: outcomesPerSecond(20, 2000), unit: 'draws/s' });
+  return figures;
+}
