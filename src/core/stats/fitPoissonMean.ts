@@ -1,6 +1,6 @@
 import { fail, ok, type Result } from '../types';
 import { findRootBracketed } from './findRootBracketed';
-import { poissonLogPmf } from './poissonLogPmf';
+import { logPoissonProbability } from '../special/logPoissonProbability';
 import { poissonLogUpperTail } from './poissonLogUpperTail';
 
 /** Relative accuracy of the estimated mean; expected counts then agree to about 12 digits. */
@@ -45,7 +45,7 @@ export function fitPoissonMean(observed: number[], openEnded: boolean): Result<n
     return fail({ code: 'bad-expected', message: `Every count is in the open-ended category ${top}+, so the Poisson mean cannot be estimated; give the top values separately.` });
   }
   const score = (mean: number) =>
-    exactSum / mean - exactCount + observed[top] * Math.exp(poissonLogPmf(top - 1, mean) - poissonLogUpperTail(top, mean));
+    exactSum / mean - exactCount + observed[top] * Math.exp(logPoissonProbability(top - 1, mean) - poissonLogUpperTail(top, mean));
   if (score(naiveMean) <= 0) return ok(naiveMean);
   let low = naiveMean;
   let high = 2 * naiveMean;

@@ -4,7 +4,7 @@ import { binomialLogUpperTail } from './binomialLogUpperTail';
 import { fitBinomialProbability } from './fitBinomialProbability';
 import { fitPoissonMean } from './fitPoissonMean';
 import type { FitRequest } from './fitRequest';
-import { poissonLogPmf } from './poissonLogPmf';
+import { logPoissonProbability } from '../special/logPoissonProbability';
 import { poissonLogUpperTail } from './poissonLogUpperTail';
 import type { FitHypothesis } from './types';
 
@@ -73,7 +73,7 @@ export function hypothesisProportions(observed: number[], request: FitRequest): 
       if (!mean.ok) return mean;
       const top = k - 1;
       const proportions = observed.map((_, value) =>
-        Math.exp(value < top ? poissonLogPmf(value, mean.value) : poissonLogUpperTail(top, mean.value)));
+        Math.exp(value < top ? logPoissonProbability(value, mean.value) : poissonLogUpperTail(top, mean.value)));
       return ok({ proportions, hypothesis: { kind: 'poisson', mean: mean.value, openEnded: request.openEnded }, estimatedParameters: 1 });
     }
     case 'binomial': {

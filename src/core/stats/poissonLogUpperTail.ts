@@ -1,4 +1,4 @@
-import { poissonLogPmf } from './poissonLogPmf';
+import { logPoissonProbability } from '../special/logPoissonProbability';
 
 /** Stop adding tail terms once they no longer change a double. */
 const SERIES_RELATIVE_TOLERANCE = Number.EPSILON / 2;
@@ -36,9 +36,9 @@ export function poissonLogUpperTail(k: number, mean: number): number {
       sum += term;
       if (term < sum * SERIES_RELATIVE_TOLERANCE) break;
     }
-    return poissonLogPmf(k, mean) + Math.log(sum);
+    return logPoissonProbability(k, mean) + Math.log(sum);
   }
   let below = 0;
-  for (let i = 0; i < k; i++) below += Math.exp(poissonLogPmf(i, mean));
+  for (let i = 0; i < k; i++) below += Math.exp(logPoissonProbability(i, mean));
   return Math.log1p(-Math.min(below, 1));
 }

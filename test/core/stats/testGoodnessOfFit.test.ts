@@ -57,7 +57,7 @@ describe('testGoodnessOfFit', () => {
         const result = run(input.observed, input.hypothesis, { confidenceLevel: input.confidenceLevel });
         assert.equal(result.df, expected.df);
         assertClose(result.statistic, expected.statistic, tolerance.relative, input);
-        // p: 1e-6 relative while src/core/special may still hold placeholders.
+        // p at the fixture tolerance (1e-10 relative).
         assertClose(result.p, expected.p, tolerance.p, input);
         assertClose(result.g.statistic, expected.gStatistic, tolerance.relative, input);
         assertClose(result.g.p, expected.gP, tolerance.p, input);
