@@ -1,37 +1,59 @@
-// The results panel's front end. It displays the finished view the host sends; every label from
-// the user's document goes in as text (textContent), never as HTML.
+// The results panel's front end: it lays out the finished view the host sends and posts the
+// user's choices back. Every label from the user's document goes in as text, never as HTML.
 import { isHostToPanel, type PanelToHost, type PanelView } from '../protocol/messages';
+import { renderPanel } from './render/panel';
+import { createStatusRegion, showStatus } from './render/status';
 
 declare function acquireVsCodeApi(): { postMessage(message: PanelToHost): void; getState(): unknown; setState(state: unknown): void };
 
 const vscode = acquireVsCodeApi();
+const post = (message: PanelToHost) => vscode.postMessage(message);
+const root = document.getElementById('root') ?? document.body.appendChild(document.createElement('main'));
+const status = createStatusRegion();
+root.before(status);
 
-function element(tag: string, text?: string): HTMLElement {
-  const node = document.createElement(tag);
-  if (text !== undefined) node.textContent = text;
-  return node;
+function asView(candidate: unknown): PanelView | undefined {
+  const message = { type: 'show', view: candidate };
+  return isHostToPanel(message) && message.type === 'show' ? message.view : undefined;
 }
 
-function render(view: PanelView): void {
-  const root = document.getElementById('root');
-  if (!root) return;
-  root.replaceChildren();
-  root.append(element('h1', view.title), element('p', view.summary));
-  const list = element('ul');
-  for (const line of view.details) list.append(element('li', line));
-  root.append(list, element('h2', 'Write-up'), element('p', view.writeUp));
-  const insert = element('button', 'Insert below the table');
-  insert.addEventListener('click', () => vscode.postMessage({ type: 'insertWriteUp' }));
-  const copy = element('button', 'Copy');
-  copy.addEventListener('click', () => vscode.postMessage({ type: 'copyWriteUp' }));
-  root.append(insert, copy);
+function show(view: PanelView): void {
+  renderPanel(root, view, post);
+  root.removeAttribute('aria-busy');
+  showStatus(status, '', 'idle');
   vscode.setState(view);
 }
 
 window.addEventListener('message', (event: MessageEvent<unknown>) => {
-  if (isHostToPanel(event.data)) render(event.data.view);
+  const message = event.data;
+  if (!isHostToPanel(message)) return;
+  switch (message.type) {
+    case 'show':
+      show(message.view);
+      break;
+    case 'busy':
+      root.setAttribute('aria-busy', 'true');
+      showStatus(status, message.message, 'busy');
+      break;
+    case 'notice':
+      root.removeAttribute('aria-busy');
+      showStatus(status, message.message, 'notice');
+      break;
+  }
 });
 
-const saved = vscode.getState();
-if (saved && typeof saved === 'object') render(saved as PanelView);
-vscode.postMessage({ type: 'ready' });
+function initialView(): PanelView | undefined {
+  const saved = asView(vscode.getState());
+  if (saved) return saved;
+  const embedded = root.dataset.initialView;
+  if (!embedded) return undefined;
+  try {
+    return asView(JSON.parse(embedded));
+  } catch {
+    return undefined;
+  }
+}
+
+const restored = initialView();
+if (restored) show(restored);
+post({ type: 'ready' });
