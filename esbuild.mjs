@@ -1,5 +1,7 @@
-// Three bundles: the extension host (Node, CommonJS, vscode external), the panel (browser IIFE)
-// and the command line (Node). esbuild does not type-check: `npm run typecheck` does.
+// Bundles: the extension host (Node, CommonJS, vscode external) split in two, a small activation
+// bundle and the engine chunk it requires lazily when a command runs (src/extension/loadEngine.ts);
+// the analysis worker; the panel (browser IIFE); the command line (Node).
+// esbuild does not type-check: `npm run typecheck` does.
 import * as esbuild from 'esbuild';
 
 const production = process.argv.includes('--production');
@@ -16,6 +18,15 @@ await Promise.all([
     ...common,
     entryPoints: ['src/extension/extension.ts'],
     outfile: 'dist/extension.js',
+    platform: 'node',
+    format: 'cjs',
+    target: 'node20',
+    external: ['vscode'],
+  }),
+  esbuild.build({
+    ...common,
+    entryPoints: ['src/extension/engine.ts'],
+    outfile: 'dist/engine.js',
     platform: 'node',
     format: 'cjs',
     target: 'node20',

@@ -1,8 +1,10 @@
 import { Worker } from 'node:worker_threads';
 import type { Analysis } from '../core/analysis';
-import { CANCEL_INDEX, type JobToWorker, type WorkerToJob } from '../core/analysisJob';
+// Type-only: a value import from core/analysisJob would pull the whole engine into dist/extension.js.
+import type { WorkerToJob } from '../core/analysisJob';
 import type { AnalyzeRequest } from '../core/analyze';
 import type { Result } from '../core/types';
+import type { TableJob, WorkerJob } from './analysisWorker';
 
 /** How long a cancelled search may take to notice before the worker is stopped outright. */
 const CANCEL_GRACE_MS = 2000;
@@ -14,10 +16,11 @@ export interface JobHooks {
 }
 
 /**
- * Runs `analyze` in a worker thread (the bundled dist/analysisWorker.js) and resolves with its result.
- * Never rejects for user input: a crashed worker becomes an Issue.
+ * Runs `analyze` (or, for a table already read, `analyzeCountTable`) in a worker thread (the bundled
+ * dist/analysisWorker.js) and resolves with its result. Never rejects for user input: a crashed worker
+ * becomes an Issue.
  */
-export function runAnalysisInWorker(workerFile: string, request: Omit<AnalyzeRequest, 'control'>, hooks: JobHooks = {}): Promise<Result<Analysis>> {
+export function runAnalysisInWorker(workerFile: string, request: Omit<AnalyzeRequest, 'control'> | TableJob, hooks: JobHooks = {}): Promise<Result<Analysis>> {
   return new Promise((resolve) => {
     const cancelFlag = new SharedArrayBuffer(Int32Array.BYTES_PER_ELEMENT);
     const flag = new Int32Array(cancelFlag);
@@ -33,7 +36,8 @@ export function runAnalysisInWorker(workerFile: string, request: Omit<AnalyzeReq
       resolve(result);
     };
     const onAbort = () => {
-      Atomics.store(flag, CANCEL_INDEX, 1);
+      // The buffer holds the one flag (core's CANCEL_INDEX); setting every slot needs no engine import.
+      for (let index = 0; index < flag.length; index++) Atomics.store(flag, index, 1);
       graceTimer = setTimeout(() => finish({ ok: false, issue: { code: 'cancelled', message: 'The analysis was cancelled; nothing was changed.' } }), CANCEL_GRACE_MS);
     };
     hooks.signal?.addEventListener('abort', onAbort);
@@ -43,7 +47,9 @@ export function runAnalysisInWorker(workerFile: string, request: Omit<AnalyzeReq
     });
     worker.on('error', (error) => finish({ ok: false, issue: { code: 'unreadable', message: `The analysis stopped unexpectedly (${error.message}). Please report it with the table.` } }));
     worker.on('exit', () => finish({ ok: false, issue: { code: 'cancelled', message: 'The analysis stopped before it finished; nothing was changed.' } }));
-    const job: JobToWorker = { type: 'analyze', request, cancelFlag };
+    const job: WorkerJob = 'kind' in request
+      ? { type: 'analyzeTable', job: request, cancelFlag }
+      : { type: 'analyze', request, cancelFlag };
     worker.postMessage(job);
     if (hooks.signal?.aborted) onAbort();
   });

@@ -48,3 +48,20 @@ describe('runAnalysisInWorker', () => {
     assert.ok(Date.now() - started < 15_000, 'stopped long before 10 million replicates would finish');
   });
 });
+
+describe('runAnalysisInWorker with a table already read', () => {
+  it('runs analyzeCountTable in the worker and matches the same call in this thread', async () => {
+    const { analyzeCountTable } = await import('../../src/core/analyze');
+    const first = analyze({ text: sparseTable(3, 3), format: 'markdown' });
+    assert.ok(first.ok);
+    if (!first.ok) return;
+    const job = { kind: 'table' as const, table: first.value.table, origin: first.value.origin, options: { ...first.value.options, pValueMethod: 'monte-carlo' as const, replicates: 2000 } };
+    const inWorker = await runAnalysisInWorker(workerFile, job);
+    const here = analyzeCountTable(job.table, job.origin, undefined, job.options);
+    assert.ok(inWorker.ok && here.ok);
+    if (!inWorker.ok || !here.ok) return;
+    assert.equal(inWorker.value.exact?.method, 'monte-carlo-patefield');
+    assert.equal(inWorker.value.exact?.p, here.value.exact?.p);
+    assert.equal(inWorker.value.writeUp, here.value.writeUp);
+  });
+});

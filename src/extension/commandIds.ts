@@ -1,0 +1,11 @@
+/** Every command Tallywise contributes; package.json must list exactly these (pinned by a test). */
+export const COMMAND_ID = {
+  checkTableHere: 'tallywise.checkTableHere',
+  testFit: 'tallywise.testFit',
+  insertWriteUp: 'tallywise.insertWriteUp',
+  copyResults: 'tallywise.copyResults',
+  panelState: 'tallywise.test.panelState',
+} as const;
+
+/** The results panel's view type (also its `onWebviewPanel:` activation event). */
+export const RESULTS_VIEW_TYPE = 'tallywise.results';
