@@ -4,6 +4,11 @@
  */
 import { benchAnalysis } from './analysis';
 import { benchCrossTabulate } from './crossTabulate';
+import { benchExactMultinomial } from './exactMultinomial';
+import { benchExtension } from './extension';
+import { benchFisher } from './fisher';
+import { benchMonteCarlo } from './monteCarlo';
+import { benchNetworkExact } from './networkExact';
 import { benchSpecial } from './special';
 import type { Figure } from './timing';
 
@@ -23,9 +28,15 @@ async function main(): Promise<void> {
     ['Special functions', benchSpecial],
     ['Analysis and table finding', benchAnalysis],
     ['Streaming cross-tabulation (1,000,000 rows)', benchCrossTabulate],
+    ["Fisher's exact test, 2×2", benchFisher],
+    ['Freeman–Halton exact test, r×c (worst of several tables per size)', benchNetworkExact],
+    ['Monte Carlo p-values, one thread', benchMonteCarlo],
+    ['Exact multinomial goodness of fit', benchExactMultinomial],
+    ['Extension: bundle sizes, activation, table to panel view', benchExtension],
   ];
+  const only = process.argv.slice(2);
   console.log(`Node ${process.version}, ${new Date().toISOString()}`);
-  for (const [title, run] of groups) {
+  for (const [title, run] of groups.filter(([title]) => only.length === 0 || only.some((word) => title.toLowerCase().includes(word.toLowerCase())))) {
     console.log(`\n${title}`);
     for (const figure of await run()) console.log(show(figure));
   }

@@ -1,0 +1,15 @@
+import assert from 'node:assert/strict';
+import * as core from '../../src/core/index';
+
+describe('core API surface', () => {
+  it('exports exactly these runtime names', () => {
+    assert.deepEqual(Object.keys(core).sort(), [
+      'CANCEL_INDEX', 'DEFAULT_ANALYZE_OPTIONS', 'DEFAULT_SEED', 'analyze', 'analyzeCountTable', 'chiSquareCriticalValue',
+      'chiSquareUpperTail', 'choosePValue', 'contributionsTable', 'createCrossTabulator', 'crossTabulateText',
+      'exactMultinomial', 'expectedCountsTable', 'findMarkdownTables', 'fisherExact2x2', 'freemanHaltonExact',
+      'locateTable', 'monteCarloGoodnessOfFit', 'monteCarloIndependence', 'noncentralChiSquareCdf', 'observedTable',
+      'proposeMerge', 'readCountTable', 'renderTable', 'resolveOptions', 'resultsReport', 'runAnalysisJob',
+      'statisticsLines', 'testGoodnessOfFit', 'testIndependence', 'toJson', 'writeUp',
+    ].sort());
+  });
+});
