@@ -9,9 +9,11 @@ const DASH = '—';
 /** Fixed decimals with a true minus sign; "—" for non-finite input. */
 export function formatFixed(value: number, decimals: number): string {
   if (!Number.isFinite(value)) return DASH;
-  const text = Math.abs(value).toFixed(decimals);
-  const isZero = Number(text) === 0;
-  return (value < 0 && !isZero ? '−' : '') + text;
+  const magnitude = Math.abs(value);
+  const text = magnitude.toFixed(decimals);
+  // A negative value that rounds to zero prints without a sign; only those need the string check.
+  const roundsToZero = magnitude < 10 ** -decimals && Number(text) === 0;
+  return (value < 0 && !roundsToZero ? '−' : '') + text;
 }
 
 /** Signed fixed decimals: "+3.41" / "−2.07". */

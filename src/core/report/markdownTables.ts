@@ -5,6 +5,7 @@ import { formatFixed, formatPercent, formatSigned } from './formatNumber';
 
 /** Escapes a label for a GFM table cell: pipes and backslashes would otherwise change the table. */
 function cellText(label: string): string {
+  if (!/[\\|\r\n]/.test(label)) return label;
   return label.replace(/\\/g, '\\\\').replace(/\|/g, '\\|').replace(/\r?\n/g, ' ');
 }
 

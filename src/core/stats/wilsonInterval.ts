@@ -1,6 +1,18 @@
 import { normalQuantile } from '../special/normalQuantile';
 import type { Interval } from '../types';
 
+// Every interval of one table shares the level, so its z is computed once (tables have up to 10,000 cells).
+let cachedLevel = Number.NaN;
+let cachedZ = Number.NaN;
+
+function twoSidedZ(level: number): number {
+  if (level !== cachedLevel) {
+    cachedZ = -normalQuantile((1 - level) / 2);
+    cachedLevel = level;
+  }
+  return cachedZ;
+}
+
 /**
  * Wilson's (1927) score interval for a binomial proportion (Wilson, "Probable inference, the law of
  * succession, and statistical inference", JASA 22, 209–212; method 3 in Newcombe 1998, Statistics in
@@ -23,7 +35,7 @@ export function wilsonInterval(successes: number, n: number, level: number): Int
   if (!(n > 0) || !(successes >= 0 && successes <= n) || !(level > 0 && level < 1)) {
     throw new RangeError(`wilsonInterval: needs 0 ≤ successes ≤ n, n > 0 and 0 < level < 1 (got ${successes}, ${n}, ${level})`);
   }
-  const z = -normalQuantile((1 - level) / 2);
+  const z = twoSidedZ(level);
   const estimate = successes / n;
   const zz = (z * z) / n;
   const centre = (estimate + zz / 2) / (1 + zz);
