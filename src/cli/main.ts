@@ -5,6 +5,7 @@ import { toJson } from '../core/toJson';
 import { runDemo } from './demo';
 import { parseCommandLine, USAGE } from './parseCommandLine';
 import { describeIssue, runAnalyze } from './runAnalyze';
+import { runPlan } from './runPlan';
 
 const EXIT_OK = 0;
 const EXIT_BAD_INPUT = 2;
@@ -36,6 +37,16 @@ export async function main(argv: string[]): Promise<number> {
       return EXIT_OK;
     case 'demo':
       return runDemo(path.join(__dirname, '..', 'examples'), command.json);
+    case 'plan': {
+      const planned = runPlan(command);
+      if (!planned.ok) {
+        const file = command.source.from === 'table' ? `${command.source.file}: ` : '';
+        process.stderr.write(`tallywise plan: ${file}${planned.issue.message}\n`);
+        return EXIT_BAD_INPUT;
+      }
+      process.stdout.write((command.json ? JSON.stringify(planned.value.json, null, 2) : planned.value.text) + '\n');
+      return EXIT_OK;
+    }
     case 'analyze': {
       const result = await runAnalyze(command);
       if (!result.ok) {

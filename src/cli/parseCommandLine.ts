@@ -17,8 +17,26 @@ export interface AnalyzeCommand {
   options: Partial<AnalyzeOptions>;
 }
 
+/** `tallywise plan`: what to plan from; the core checks the values themselves. */
+export type PlanSource =
+  | { from: 'effect-size'; w: number; df: number }
+  | { from: 'groups'; groups: string; allocation?: number[] }
+  | { from: 'fit'; anticipated: string; nullProportions: string }
+  | { from: 'two-proportions'; p1: number; p2?: number; difference?: number; ratio?: number; oddsRatio?: number; allocation?: number[] }
+  | { from: 'table'; file: string; format?: DocumentFormat; line?: number; tableIndex?: number; nullProportions?: string; allocation?: number[] }
+  | { from: 'sensitivity'; sizes: number[]; df?: number; p1?: number };
+
+export interface PlanCommand {
+  kind: 'plan';
+  source: PlanSource;
+  alpha?: number;
+  power?: number;
+  json: boolean;
+}
+
 export type Command =
   | AnalyzeCommand
+  | PlanCommand
   | { kind: 'demo'; json: boolean }
   | { kind: 'help' }
   | { kind: 'version' };
@@ -27,6 +45,7 @@ export type Parsed = { ok: true; command: Command } | { ok: false; message: stri
 
 export const USAGE = `Usage:
   tallywise analyze <file|-> [options]   test the count table in a Markdown, CSV/TSV or text file
+  tallywise plan [<file>] [options]      sample size and power for the next study (see "Planning")
   tallywise demo [--json]                analyse the bundled example notes
   tallywise help | --version
 
@@ -55,6 +74,20 @@ Numbers and wording:
   --one-line          a one-line result instead of the paragraph
   --plain             plain text write-up (no Markdown emphasis)
   --json              one JSON object per analysis (see README, "JSON output")
+
+Planning (tallywise plan):
+  --w W --df K        from an effect size w (Cohen) and the test's degrees of freedom
+  --groups P          anticipated outcome proportions per group: "0.04,0.96; 0.08,0.92"
+  --allocation A      relative group sizes, e.g. 1,2 (default equal)
+  --anticipated P --null Q
+                      goodness of fit: anticipated proportions P against the null proportions Q
+  --p1 X --p2 Y       two proportions (or --difference D, --ratio R, --odds-ratio OR instead of --p2)
+  <file> [--table K | --line N] [--null Q]
+                      the anticipated table of counts in a document (one row or column: with --null)
+  --sensitivity --n N --df K      smallest detectable w for N observations
+  --sensitivity --n N1,N2 --p1 X  smallest detectable second proportion for two groups
+  --alpha X           significance level (default 0.05); --power X target power (default 0.8)
+  --json              n, perGroup, power, targetPower, w, df, alpha, criticalValue, lambda, curve, writeUp
 
 Exit status: 0 on success, 2 on bad input (the message goes to stderr).`;
 
@@ -97,6 +130,20 @@ export function parseCommandLine(argv: string[]): Parsed {
         'one-line': { type: 'boolean' },
         plain: { type: 'boolean' },
         json: { type: 'boolean' },
+        w: { type: 'string' },
+        df: { type: 'string' },
+        power: { type: 'string' },
+        groups: { type: 'string' },
+        allocation: { type: 'string' },
+        anticipated: { type: 'string' },
+        null: { type: 'string' },
+        p1: { type: 'string' },
+        p2: { type: 'string' },
+        difference: { type: 'string' },
+        ratio: { type: 'string' },
+        'odds-ratio': { type: 'string' },
+        sensitivity: { type: 'boolean' },
+        n: { type: 'string' },
         help: { type: 'boolean', short: 'h' },
         version: { type: 'boolean' },
       },
@@ -109,6 +156,9 @@ export function parseCommandLine(argv: string[]): Parsed {
   const [verb, ...rest] = positionals;
   if (values.help || verb === undefined || verb === 'help') return { ok: true, command: { kind: 'help' } };
   if (verb === 'demo') return { ok: true, command: { kind: 'demo', json: values.json === true } };
+  if (verb === 'plan') return parsePlan(values, rest);
+  const planFlag = PLAN_ONLY_FLAGS.find((flag) => values[flag] !== undefined);
+  if (planFlag) return { ok: false, message: `--${planFlag} belongs to "tallywise plan", not "${verb}".\n\n${USAGE}` };
   if (verb !== 'analyze') return { ok: false, message: `Unknown command "${verb}".\n\n${USAGE}` };
   if (rest.length !== 1) return { ok: false, message: `analyze takes one file (or "-" for standard input).\n\n${USAGE}` };
 
@@ -177,4 +227,72 @@ export function parseCommandLine(argv: string[]): Parsed {
       options,
     },
   };
+}
+
+const PLAN_ONLY_FLAGS = ['w', 'df', 'power', 'groups', 'allocation', 'anticipated', 'null', 'p1', 'p2', 'difference', 'ratio', 'odds-ratio', 'sensitivity', 'n'] as const;
+
+function parseNumberList(name: string, text: string | undefined): number[] | string | undefined {
+  if (text === undefined) return undefined;
+  const parts = text.split(/[,:\s]+/).filter((part) => part !== '');
+  const values = parts.map(Number);
+  if (parts.length === 0 || values.some((value) => !Number.isFinite(value))) return `--${name} needs numbers separated by commas, like 1,2 (got "${text}").`;
+  return values;
+}
+
+/** `tallywise plan ...` → a plan command; exactly one source of anticipated values. */
+function parsePlan(values: Record<string, string | boolean | undefined>, rest: string[]): Parsed {
+  const text = (name: string) => values[name] as string | undefined;
+  const numbers: Record<string, number | string | undefined> = {};
+  for (const name of ['w', 'df', 'alpha', 'power', 'p1', 'p2', 'difference', 'ratio', 'odds-ratio']) numbers[name] = parseNumber(name, text(name));
+  numbers.line = parseWhole('line', text('line'));
+  numbers.table = parseWhole('table', text('table'));
+  for (const value of Object.values(numbers)) if (typeof value === 'string') return { ok: false, message: value };
+  const allocation = parseNumberList('allocation', text('allocation'));
+  const sizes = parseNumberList('n', text('n'));
+  for (const value of [allocation, sizes]) if (typeof value === 'string') return { ok: false, message: value };
+  const num = (name: string) => numbers[name] as number | undefined;
+  const weights = allocation as number[] | undefined;
+  if (rest.length > 1) return { ok: false, message: `plan takes at most one file (got ${rest.length}).\n\n${USAGE}` };
+  const sources = [
+    rest.length === 1 && 'a file',
+    values.sensitivity === true && '--sensitivity',
+    values.w !== undefined && '--w',
+    values.groups !== undefined && '--groups',
+    values.anticipated !== undefined && '--anticipated',
+    values.p1 !== undefined && values.sensitivity !== true && '--p1',
+  ].filter((source): source is string => typeof source === 'string');
+  if (sources.length !== 1) {
+    const found = sources.length === 0 ? 'none was given' : `got ${sources.join(' and ')}`;
+    return { ok: false, message: `plan needs exactly one starting point: --w with --df, --groups, --anticipated with --null, --p1 with --p2, a file, or --sensitivity (${found}).\n\n${USAGE}` };
+  }
+  const settings = { alpha: num('alpha'), power: num('power'), json: values.json === true };
+  const done = (source: PlanSource): Parsed => ({ ok: true, command: { kind: 'plan', source, ...settings } });
+  const format = text('format');
+  if (format !== undefined && format !== 'markdown' && format !== 'delimited' && format !== 'text') {
+    return { ok: false, message: `--format must be markdown, delimited or text (got "${format}").` };
+  }
+  switch (sources[0]) {
+    case 'a file':
+      return done({ from: 'table', file: rest[0], format, line: num('line'), tableIndex: num('table'), nullProportions: text('null'), allocation: weights });
+    case '--sensitivity': {
+      const n = sizes as number[] | undefined;
+      if (n === undefined) return { ok: false, message: '--sensitivity needs --n: the total sample size (with --df), or two group sizes N1,N2 (with --p1).' };
+      if (n.length === 2 && num('p1') === undefined) return { ok: false, message: 'Two group sizes in --n need the baseline proportion --p1 of group 1.' };
+      if (n.length === 1 && num('df') === undefined) return { ok: false, message: '--sensitivity with one --n needs --df, the degrees of freedom of the planned test.' };
+      if (n.length > 2) return { ok: false, message: `--n takes one total or two group sizes (got ${n.length} numbers).` };
+      return done({ from: 'sensitivity', sizes: n, df: num('df'), p1: num('p1') });
+    }
+    case '--w':
+      if (num('df') === undefined) return { ok: false, message: '--w needs --df, the degrees of freedom of the planned test: (rows − 1) × (columns − 1), or categories − 1 for goodness of fit.' };
+      return done({ from: 'effect-size', w: num('w') as number, df: num('df') as number });
+    case '--groups':
+      return done({ from: 'groups', groups: text('groups') as string, allocation: weights });
+    case '--anticipated':
+      if (text('null') === undefined) return { ok: false, message: '--anticipated needs --null: the proportions the goodness-of-fit test checks against.' };
+      return done({ from: 'fit', anticipated: text('anticipated') as string, nullProportions: text('null') as string });
+    default: {
+      if (weights !== undefined && weights.length !== 2) return { ok: false, message: `--allocation for two proportions takes two weights, like 1,2 (got ${weights.length}).` };
+      return done({ from: 'two-proportions', p1: num('p1') as number, p2: num('p2'), difference: num('difference'), ratio: num('ratio'), oddsRatio: num('odds-ratio'), allocation: weights });
+    }
+  }
 }

@@ -5,6 +5,7 @@ export const COMMAND_ID = {
   insertWriteUp: 'tallywise.insertWriteUp',
   copyResults: 'tallywise.copyResults',
   panelState: 'tallywise.test.panelState',
+  planStudy: 'tallywise.planStudy',
 } as const;
 
 /** The results panel's view type (also its `onWebviewPanel:` activation event). */

@@ -8,3 +8,8 @@ export { fitCategories } from './fitCategories';
 export { mergedCountTable } from './mergedCountTable';
 export { rawDataColumns } from './rawDataColumns';
 export { withMarkup } from './withMarkup';
+export { DEFAULT_PLAN_ALPHA, planStudy } from '../core/plan/planStudy';
+export { parseProportionGroups } from '../core/plan/parseProportionGroups';
+export { checkDf, checkEffectSize, checkPower, checkProportions } from '../core/plan/validatePlanInputs';
+export { writePlan } from '../core/report/writePlan';
+export { planFromTable } from './planFromTable';

@@ -6,6 +6,7 @@ import { CheckTableHereCommand } from './commands/checkTableHereCommand';
 import { CopyResultsCommand } from './commands/copyResultsCommand';
 import { InsertWriteUpCommand } from './commands/insertWriteUpCommand';
 import { PanelStateCommand } from './commands/panelStateCommand';
+import { PlanStudyCommand } from './commands/planStudyCommand';
 import { TestFitCommand } from './commands/testFitCommand';
 import { PanelSerializer } from './panelSerializer';
 import { SETTING } from './settings';
@@ -21,6 +22,7 @@ export function activate(context: vscode.ExtensionContext): void {
     new InsertWriteUpCommand(tallywise),
     new CopyResultsCommand(tallywise),
     new PanelStateCommand(tallywise),
+    new PlanStudyCommand(tallywise),
   ];
   for (const command of commands) {
     context.subscriptions.push(vscode.commands.registerCommand(command.id, (...args: unknown[]) => command.execute(...args)));

@@ -13,6 +13,8 @@ export interface PanelStateForTests {
   lastWriteUp: string | undefined;
   lastP: number | undefined;
   lastExactMethod: string | undefined;
+  /** The latest analysis's test, sample size, degrees of freedom and Pearson statistic. */
+  lastResult: { test: string; n: number; df: number; statistic: number } | undefined;
 }
 
 /** A test hook, hidden from the palette (`"when": "false"`): the state of the panel and the last analysis. */
@@ -30,6 +32,7 @@ export class PanelStateCommand implements Command {
       lastWriteUp: last?.analysis.writeUp,
       lastP: last ? (last.analysis.exact?.p ?? last.analysis.result.p) : undefined,
       lastExactMethod: last?.analysis.exact?.method,
+      lastResult: last && { test: last.analysis.result.test, n: last.analysis.result.n, df: last.analysis.result.df, statistic: last.analysis.result.statistic },
     };
   }
 }
