@@ -9,6 +9,7 @@ import { benchExtension } from './extension';
 import { benchFisher } from './fisher';
 import { benchMonteCarlo } from './monteCarlo';
 import { benchNetworkExact } from './networkExact';
+import { benchPlan } from './plan';
 import { benchSpecial } from './special';
 import type { Figure } from './timing';
 
@@ -32,6 +33,7 @@ async function main(): Promise<void> {
     ['Freeman–Halton exact test, r×c (worst of several tables per size)', benchNetworkExact],
     ['Monte Carlo p-values, one thread', benchMonteCarlo],
     ['Exact multinomial goodness of fit', benchExactMultinomial],
+    ['Study planning', benchPlan],
     ['Extension: bundle sizes, activation, table to panel view', benchExtension],
   ];
   const only = process.argv.slice(2);

@@ -8,8 +8,8 @@ describe('core API surface', () => {
       'chiSquareUpperTail', 'choosePValue', 'contributionsTable', 'createCrossTabulator', 'crossTabulateText',
       'exactMultinomial', 'expectedCountsTable', 'findMarkdownTables', 'fisherExact2x2', 'freemanHaltonExact',
       'locateTable', 'monteCarloGoodnessOfFit', 'monteCarloIndependence', 'noncentralChiSquareCdf', 'observedTable',
-      'proposeMerge', 'readCountTable', 'renderTable', 'resolveOptions', 'resultsReport', 'runAnalysisJob',
-      'statisticsLines', 'testGoodnessOfFit', 'testIndependence', 'toJson', 'writeUp',
+      'planStudy', 'proposeMerge', 'readCountTable', 'renderTable', 'resolveOptions', 'resultsReport', 'runAnalysisJob', 'smallestDetectableDifference', 'smallestDetectableEffect',
+      'statisticsLines', 'testGoodnessOfFit', 'testIndependence', 'toJson', 'writePlan', 'writeUp',
     ].sort());
   });
 });
