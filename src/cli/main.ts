@@ -60,6 +60,11 @@ export async function main(argv: string[]): Promise<number> {
 }
 
 if (require.main === module) {
+  // A reader that stops early (`tallywise analyze ... | head`) is not an error.
+  process.stdout.on('error', (error: NodeJS.ErrnoException) => {
+    if (error.code === 'EPIPE') process.exit(0);
+    throw error;
+  });
   main(process.argv.slice(2)).then(
     (code) => { process.exitCode = code; },
     (error: unknown) => {
