@@ -3,6 +3,7 @@
  * monteCarloIndependence runs it), the time for 9,999 replicates of large tables, and multinomial
  * outcomes per second for goodness of fit. One thread; targets from the issue.
  */
+import { tableFromWeights } from '../test/helpers/randomTables';
 import { monteCarloGoodnessOfFit } from '../src/core/exact/monteCarloGoodnessOfFit';
 import { monteCarloIndependence } from '../src/core/exact/monteCarloIndependence';
 import { medianMs, seededRandom, type Figure } from './timing';
@@ -17,15 +18,7 @@ function randomTable(rows: number, columns: number, total: number, seed: number)
   const rowWeights = Array.from({ length: rows }, () => 0.5 + random());
   const columnWeights = Array.from({ length: columns }, () => 0.5 + random());
   const weights = rowWeights.flatMap((r) => columnWeights.map((c) => r * c * (0.7 + 0.6 * random())));
-  const sum = weights.reduce((s, w) => s + w, 0);
-  const table = Array.from({ length: rows }, () => new Array<number>(columns).fill(0));
-  for (let n = 0; n < total; n++) {
-    let u = random() * sum;
-    let cell = 0;
-    while (u > weights[cell] && cell < weights.length - 1) u -= weights[cell++];
-    table[Math.floor(cell / columns)][cell % columns] += 1;
-  }
-  return table;
+  return tableFromWeights(random, weights, rows, columns, total);
 }
 
 function tablesPerSecond(rows: number, columns: number, total: number): number {

@@ -3,6 +3,7 @@
  * adversarial tables (uniform cells, one dominant cell, weak association with p near 1/2, strong
  * diagonal association with a tiny p). The issue asks for under 1 s at each size listed here.
  */
+import { tableFromWeights } from '../test/helpers/randomTables';
 import { freemanHaltonExact } from '../src/core/exact/network/freemanHaltonExact';
 import { medianMs, seededRandom, type Figure } from './timing';
 
@@ -50,15 +51,7 @@ function cellWeights(random: () => number, rows: number, columns: number, kind: 
 
 function randomTable(random: () => number, rows: number, columns: number, total: number, kind: Kind): number[][] {
   const weights = cellWeights(random, rows, columns, kind);
-  const sum = weights.reduce((a, b) => a + b, 0);
-  const table = Array.from({ length: rows }, () => new Array<number>(columns).fill(0));
-  for (let n = 0; n < total; n++) {
-    let u = random() * sum;
-    let cell = 0;
-    while (u > weights[cell] && cell < weights.length - 1) u -= weights[cell++];
-    table[Math.floor(cell / columns)][cell % columns] += 1;
-  }
-  return table;
+  return tableFromWeights(random, weights, rows, columns, total);
 }
 
 function timeTable(table: number[][]): { ms: number; p: number } {

@@ -28,14 +28,4 @@ export function medianMs(run: () => unknown, budgetMs = 300): number {
   return samples[Math.floor(samples.length / 2)];
 }
 
-/** A seeded generator for benchmark inputs (mulberry32); benchmarks must be repeatable too. */
-export function seededRandom(seed: number): () => number {
-  let state = seed >>> 0;
-  return () => {
-    state = (state + 0x6d2b79f5) >>> 0;
-    let t = state;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
+export { seededRandom } from '../test/helpers/randomTables';

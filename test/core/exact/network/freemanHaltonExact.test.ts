@@ -5,35 +5,17 @@ import { jStat } from 'jstat';
 import { freemanHaltonExact } from '../../../../src/core/exact/network/freemanHaltonExact';
 import type { ExactPValue } from '../../../../src/core/exact/types';
 import { assertClose } from '../../../helpers/assertClose';
+import { seededRandom, tableFromWeights } from '../../../helpers/randomTables';
 
 /** The task's agreement with brute force (relative). */
 const BRUTE_FORCE_TOLERANCE = 1e-9;
 /** Tables within this relative factor of P(observed) count as ties; RELATIVE_TIE_TOLERANCE, restated from its definition. */
 const TIE = 1e-7;
 
-/** mulberry32, a small seeded generator (tests must be repeatable). */
-function seeded(seed: number): () => number {
-  let state = seed >>> 0;
-  return () => {
-    state = (state + 0x6d2b79f5) >>> 0;
-    let t = state;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 function randomTable(random: () => number, rows: number, columns: number, total: number): number[][] {
   const weights = Array.from({ length: rows * columns }, () => random() ** 2 + 0.02);
-  const sum = weights.reduce((a, b) => a + b, 0);
-  const table = Array.from({ length: rows }, () => new Array<number>(columns).fill(0));
-  for (let n = 0; n < total; n++) {
-    let u = random() * sum;
-    let cell = 0;
-    while (u > weights[cell] && cell < weights.length - 1) u -= weights[cell++];
-    table[Math.floor(cell / columns)][cell % columns] += 1;
-  }
-  return table;
+  return tableFromWeights(random, weights, rows, columns, total);
 }
 
 /**
@@ -145,7 +127,7 @@ function readRxcFixture(): { referenceVersion: string; cases: RxcCase[] } {
 
 describe('freemanHaltonExact', () => {
   it('agrees with brute-force enumeration on 480 seeded random tables up to 4×4 and 2×6', () => {
-    const random = seeded(20240611);
+    const random = seededRandom(20240611);
     const shapes: [number, number, number][] = [
       [2, 2, 25], [2, 3, 25], [2, 4, 25], [2, 5, 25], [2, 6, 25], [3, 2, 25], [3, 3, 25], [3, 4, 25], [4, 3, 25], [4, 4, 25], [6, 2, 20], [5, 3, 16],
     ];
@@ -202,7 +184,7 @@ describe('freemanHaltonExact', () => {
   });
 
   it('does not change when the table is transposed or its rows and columns are permuted', () => {
-    const random = seeded(7);
+    const random = seededRandom(7);
     for (let n = 0; n < 40; n++) {
       const rows = 2 + Math.floor(random() * 3);
       const columns = 2 + Math.floor(random() * 4);
