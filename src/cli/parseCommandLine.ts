@@ -1,21 +1,16 @@
 import { parseArgs } from 'node:util';
 import type { AnalyzeOptions } from '../core/analysis';
-import type { DocumentFormat } from '../core/analyze';
+import type { AnalyzeRequest, DocumentFormat } from '../core/analyze';
 import { DEFAULT_SEED, type PValueMethod } from '../core/exact/choosePValue';
 
-export interface AnalyzeCommand {
+/** What `tallywise analyze` asks of the engine: the file, how to print, and the request's own fields. */
+export type AnalyzeCommand = Pick<AnalyzeRequest, 'line' | 'selection' | 'tableIndex' | 'fit' | 'columns' | 'weight'> & {
   kind: 'analyze';
   file: string;
   format?: DocumentFormat;
-  line?: number;
-  selection?: { startLine: number; endLine: number };
-  tableIndex?: number;
-  fit?: string;
-  columns?: [string, string];
-  weight?: string;
   json: boolean;
   options: Partial<AnalyzeOptions>;
-}
+};
 
 /** `tallywise plan`: what to plan from; the core checks the values themselves. */
 export type PlanSource =

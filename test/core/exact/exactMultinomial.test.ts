@@ -4,6 +4,7 @@ import * as path from 'node:path';
 import { exactMultinomial } from '../../../src/core/exact/exactMultinomial';
 import { assertClose } from '../../helpers/assertClose';
 import { exactGoodnessOfFitP, testInputs } from './bruteForce';
+import { tableFromWeights } from '../../helpers/randomTables';
 
 interface Fixture {
   generator: string;
@@ -30,14 +31,7 @@ describe('exactMultinomial', () => {
       const equal = next() < 0.35;
       const proportions = Array.from({ length: k }, () => (equal ? 1 : 0.2 + Math.floor(next() * 6) / 2));
       const skew = proportions.map((p) => p * (0.2 + 2 * next()));
-      const skewSum = skew.reduce((s, v) => s + v, 0);
-      const observed = new Array<number>(k).fill(0);
-      for (let n = 0; n < total; n++) {
-        let u = next() * skewSum;
-        let j = 0;
-        while (u > skew[j] && j < k - 1) u -= skew[j++];
-        observed[j] += 1;
-      }
+      const observed = tableFromWeights(next, skew, 1, k, total)[0];
       const expected = Math.min(1, exactGoodnessOfFitP(observed, proportions, 'probability'));
       assertClose(pOf(observed, proportions), expected, 1e-11, { observed, proportions });
     }

@@ -4,6 +4,7 @@ import { monteCarloGoodnessOfFit } from '../../../src/core/exact/monteCarloGoodn
 import { monteCarloGoodnessOfFitBlocks } from '../../../src/core/exact/monteCarloGoodnessOfFitBlocks';
 import { monteCarloPValue } from '../../../src/core/exact/monteCarloPValue';
 import { exactGoodnessOfFitP, testInputs } from './bruteForce';
+import { tableFromWeights } from '../../helpers/randomTables';
 
 /** More misses than this out of 30 cases at 99% coverage would have probability < 0.004. */
 const ALLOWED_MISSES = 3;
@@ -13,14 +14,7 @@ function randomCase(next: () => number): { observed: number[]; proportions: numb
   const total = 10 + Math.floor(next() * (k <= 4 ? 30 : 16));
   const proportions = next() < 0.4 ? new Array<number>(k).fill(1) : Array.from({ length: k }, () => 1 + Math.floor(next() * 5));
   const skew = proportions.map((p) => p * (0.1 + 2 * next() ** 2));
-  const skewSum = skew.reduce((s, v) => s + v, 0);
-  const observed = new Array<number>(k).fill(0);
-  for (let n = 0; n < total; n++) {
-    let u = next() * skewSum;
-    let j = 0;
-    while (u > skew[j] && j < k - 1) u -= skew[j++];
-    observed[j] += 1;
-  }
+  const observed = tableFromWeights(next, skew, 1, k, total)[0];
   return { observed, proportions };
 }
 

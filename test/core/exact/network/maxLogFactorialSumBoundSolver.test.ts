@@ -2,6 +2,7 @@ import assert from 'node:assert/strict';
 import { logFactorialTable } from '../../../../src/core/exact/network/logFactorialTable';
 import { maxLogFactorialSumBoundSolver } from '../../../../src/core/exact/network/maxLogFactorialSumBoundSolver';
 import { assertClose } from '../../../helpers/assertClose';
+import { seededRandom } from '../../../helpers/randomTables';
 
 function largestLogFactorialSum(rowSums: number[], columnSums: number[]): number {
   const logFactorial = [0];
@@ -25,17 +26,9 @@ function largestLogFactorialSum(rowSums: number[], columnSums: number[]): number
   return largest;
 }
 
-function seeded(seed: number): () => number {
-  let state = seed;
-  return () => {
-    state = (state * 1103515245 + 12345) % 2147483648;
-    return state / 2147483648;
-  };
-}
-
 describe('maxLogFactorialSumBoundSolver', () => {
   it('never falls below the largest Σ log x_ij! over the tables, and equals it for one or two rows or columns', () => {
-    const random = seeded(5);
+    const random = seededRandom(5);
     const bound = maxLogFactorialSumBoundSolver(5, 5, logFactorialTable(30));
     let exactCases = 0;
     for (let n = 0; n < 300; n++) {

@@ -2,6 +2,7 @@ import assert from 'node:assert/strict';
 import { logFactorialTable } from '../../../../src/core/exact/network/logFactorialTable';
 import { minLogFactorialSumSolver } from '../../../../src/core/exact/network/minLogFactorialSumSolver';
 import { assertClose } from '../../../helpers/assertClose';
+import { seededRandom } from '../../../helpers/randomTables';
 
 /** Calls visit(Σ log x_ij!) for every table with the given margins (log k! summed from Math.log). */
 function forEachLogFactorialSum(rowSums: number[], columnSums: number[], visit: (sum: number) => void): void {
@@ -34,18 +35,9 @@ function randomMargins(random: () => number, rows: number, columns: number, tota
   return [rowSums, columnSums];
 }
 
-/** A small linear congruential generator, seeded (common practice for repeatable tests). */
-function seeded(seed: number): () => number {
-  let state = seed;
-  return () => {
-    state = (state * 1103515245 + 12345) % 2147483648;
-    return state / 2147483648;
-  };
-}
-
 describe('minLogFactorialSumSolver', () => {
   it('finds the smallest Σ log x_ij! over all tables with the margins, as enumeration does', () => {
-    const random = seeded(99);
+    const random = seededRandom(99);
     const solve = minLogFactorialSumSolver(5, 5, logFactorialTable(30));
     for (let n = 0; n < 300; n++) {
       const rows = 1 + Math.floor(random() * 5);
