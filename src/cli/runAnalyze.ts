@@ -1,6 +1,6 @@
 import * as fs from 'node:fs';
 import * as path from 'node:path';
-import { analyze, analyzeCountTable, type AnalyzeRequest, type DocumentFormat } from '../core/analyze';
+import { analyze, analyzeCountTable, splitCrossTabulation, type AnalyzeRequest, type DocumentFormat } from '../core/analyze';
 import type { Analysis } from '../core/analysis';
 import type { SearchControl } from '../core/exact/choosePValue';
 import { resolveOptions } from '../core/options';
@@ -43,8 +43,8 @@ async function streamRawData(command: AnalyzeCommand): Promise<Result<Analysis>>
   for await (const chunk of stream) tabulator.push(chunk as string);
   const tabulated = tabulator.finish();
   if (!tabulated.ok) return tabulated;
-  const { columnsUsed, weightColumn, rowsRead, rowsSkipped, ...table } = tabulated.value;
-  return analyzeCountTable(table, { index: 1, count: 1, crossTabulation: { columns: columnsUsed, weightColumn, rowsRead, rowsSkipped } }, command.fit, options.value, terminalProgress());
+  const { table, origin } = splitCrossTabulation(tabulated.value);
+  return analyzeCountTable(table, origin, command.fit, options.value, terminalProgress());
 }
 
 function shouldStream(command: AnalyzeCommand, format: DocumentFormat): boolean {

@@ -10,7 +10,7 @@ import { proposeMerge } from './stats/proposeMerge';
 import { testGoodnessOfFit } from './stats/testGoodnessOfFit';
 import { testIndependence } from './stats/testIndependence';
 import type { TestResult } from './stats/types';
-import { crossTabulateText } from './table/crossTabulate';
+import { crossTabulateText, type CrossTabulation } from './table/crossTabulate';
 import { locateTable } from './table/locateTable';
 import { describeLocation } from './table/describeLocation';
 import { readCountTable } from './table/readCountTable';
@@ -82,8 +82,13 @@ function readTable(request: AnalyzeRequest): Result<{ table: CountTable; origin:
 function crossTabulate(request: AnalyzeRequest, origin: TableOrigin): Result<{ table: CountTable; origin: TableOrigin }> {
   const tabulated = crossTabulateText(request.text, { columns: request.columns, weight: request.weight });
   if (!tabulated.ok) return tabulated;
-  const { columnsUsed, weightColumn, rowsRead, rowsSkipped, ...table } = tabulated.value;
-  return ok({ table, origin: { ...origin, crossTabulation: { columns: columnsUsed, weightColumn, rowsRead, rowsSkipped } } });
+  return ok(splitCrossTabulation(tabulated.value, origin));
+}
+
+/** A finished cross-tabulation as the count table to test and where it came from (the CLI's streaming path uses it too). */
+export function splitCrossTabulation(tabulation: CrossTabulation, origin: TableOrigin = { index: 1, count: 1 }): { table: CountTable; origin: TableOrigin } {
+  const { columnsUsed, weightColumn, rowsRead, rowsSkipped, ...table } = tabulation;
+  return { table, origin: { ...origin, crossTabulation: { columns: columnsUsed, weightColumn, rowsRead, rowsSkipped } } };
 }
 
 /** Which row or column, if any, holds expected counts (a 2×k or k×2 table with one labelled "Expected"). */
