@@ -12,33 +12,25 @@ const common = {
   logLevel: 'warning',
   logOverride: { 'import-is-undefined': 'error' },
 };
+const nodeBundle = { ...common, platform: 'node', format: 'cjs', target: 'node20' };
 
 await Promise.all([
   esbuild.build({
-    ...common,
+    ...nodeBundle,
     entryPoints: ['src/extension/extension.ts'],
     outfile: 'dist/extension.js',
-    platform: 'node',
-    format: 'cjs',
-    target: 'node20',
     external: ['vscode'],
   }),
   esbuild.build({
-    ...common,
+    ...nodeBundle,
     entryPoints: ['src/extension/engine.ts'],
     outfile: 'dist/engine.js',
-    platform: 'node',
-    format: 'cjs',
-    target: 'node20',
     external: ['vscode'],
   }),
   esbuild.build({
-    ...common,
+    ...nodeBundle,
     entryPoints: ['src/extension/analysisWorker.ts'],
     outfile: 'dist/analysisWorker.js',
-    platform: 'node',
-    format: 'cjs',
-    target: 'node20',
   }),
   esbuild.build({
     ...common,
@@ -49,12 +41,9 @@ await Promise.all([
     target: 'es2022',
   }),
   esbuild.build({
-    ...common,
+    ...nodeBundle,
     entryPoints: ['src/cli/main.ts'],
     outfile: 'dist/cli.js',
-    platform: 'node',
-    format: 'cjs',
-    target: 'node20',
     banner: { js: '#!/usr/bin/env node' },
   }),
 ]);
