@@ -1,4 +1,6 @@
 import type { Analysis, AnalyzeOptions, TableOrigin } from './analysis';
+import { analyzePaired, analyzeStrata, sumStrata, type LabelledStratum } from './designs/analyzeDesigns';
+import { followUps as computeFollowUps, type FollowUps } from './designs/followUps';
 import { choosePValue, type SearchControl } from './exact/choosePValue';
 import { resolveOptions } from './options';
 import { contributionsTable, expectedCountsTable } from './report/markdownTables';
@@ -175,6 +177,22 @@ export function analyzeCountTable(
   }
   const result = runTest(table, fitRequest, options);
   if (!result.ok) return result;
+  if (options.design === 'stratified') {
+    const location = { line: table.startLine, column: 1 };
+    return fail({
+      code: 'bad-option',
+      message: `${describeLocation(location)}: a stratified analysis needs several 2×2 tables one after another with the same labels, or a raw data file with a stratum column; this is one table.`,
+      location,
+    });
+  }
+  if (options.design === 'paired') {
+    if (fitRequest) {
+      return fail({ code: 'bad-option', message: 'A paired analysis compares two measurements of the same units; it cannot be combined with expected proportions. Drop one of the two.' });
+    }
+    const paired = analyzePaired(table, options);
+    if (!paired.ok) return paired;
+    return ok(finish({ kind: 'paired', table, origin, result: result.value, paired: paired.value.paired, warnings: paired.value.warnings, options }));
+  }
   const choice = choosePValue(result.value, table.observed, options, control);
   if (choice.kind === 'cancelled') {
     return fail({ code: 'cancelled', message: 'The exact or simulated test was cancelled; nothing was changed.' });
@@ -191,18 +209,34 @@ export function analyzeCountTable(
       location,
     });
   }
-  return ok({
-    table,
-    origin,
-    result: result.value,
-    exact,
-    exactNote,
-    warnings,
-    writeUp: writeUp(result.value, table, options, exact, exactNote),
-    expectedTable: expectedCountsTable(result.value, table, options),
-    contributionsTable: contributionsTable(result.value, table, options),
-    options,
-  });
+  let followUps: FollowUps | undefined;
+  if (result.value.test === 'independence') {
+    const computed = computeFollowUps(table, result.value, options);
+    if (!computed.ok) return computed;
+    followUps = computed.value;
+  }
+  const kind = result.value.test === 'independence' ? 'independence' : 'goodness-of-fit';
+  return ok(finish({ kind, table, origin, result: result.value, exact, exactNote, followUps, warnings, options }));
+}
+
+/** Several 2×2 strata tested together (CMH); the strata summed stand in as the table for context. */
+export function analyzeStrataTables(strata: readonly LabelledStratum[], origin: TableOrigin, options: AnalyzeOptions): Result<Analysis> {
+  const checked = analyzeStrata(strata, options);
+  if (!checked.ok) return checked;
+  const table = sumStrata(strata);
+  const result = testIndependence(table.observed, { ...options, rowsOrdered: false, columnsOrdered: false });
+  const warnings = [...table.warnings, ...checked.value.warnings];
+  return ok(finish({ kind: 'stratified', table, origin, result, stratified: checked.value.stratified, warnings, options: { ...options, design: 'stratified' } }));
+}
+
+/** Adds the text that every analysis carries: the write-up and the ready-to-insert tables. */
+function finish(analysis: Omit<Analysis, 'writeUp' | 'expectedTable' | 'contributionsTable'>): Analysis {
+  return {
+    ...analysis,
+    writeUp: writeUp(analysis, analysis.options),
+    expectedTable: expectedCountsTable(analysis.result, analysis.table, analysis.options),
+    contributionsTable: contributionsTable(analysis.result, analysis.table, analysis.options),
+  };
 }
 
 function runTest(table: CountTable, fitRequest: FitRequest | undefined, options: AnalyzeOptions): Result<TestResult> {

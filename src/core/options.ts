@@ -1,9 +1,10 @@
 import { DEFAULT_REPORT_OPTIONS, type AnalyzeOptions } from './analysis';
+import { DEFAULT_DESIGN_OPTIONS, designOptionProblem } from './designs/designOptions';
 import { DEFAULT_PVALUE_OPTIONS } from './exact/choosePValue';
 import { DEFAULT_TEST_OPTIONS } from './stats/types';
 import { fail, ok, type Result } from './types';
 
-export const DEFAULT_ANALYZE_OPTIONS: AnalyzeOptions = { ...DEFAULT_TEST_OPTIONS, ...DEFAULT_REPORT_OPTIONS, ...DEFAULT_PVALUE_OPTIONS };
+export const DEFAULT_ANALYZE_OPTIONS: AnalyzeOptions = { ...DEFAULT_TEST_OPTIONS, ...DEFAULT_REPORT_OPTIONS, ...DEFAULT_PVALUE_OPTIONS, ...DEFAULT_DESIGN_OPTIONS };
 
 /** Most Monte Carlo replicates one run may ask for (about a minute of simulation at 10×10). */
 const MAX_REPLICATES = 10_000_000;
@@ -39,5 +40,7 @@ export function resolveOptions(partial: Partial<AnalyzeOptions> | undefined): Re
   if (!(options.exactTimeMs > 0 && options.exactTimeMs <= MAX_EXACT_TIME_MS)) {
     return bad(`The exact-search time limit must be above 0 and at most ${MAX_EXACT_TIME_MS / 1000} s (got ${options.exactTimeMs} ms).`);
   }
+  const designProblem = designOptionProblem(options);
+  if (designProblem) return bad(designProblem);
   return ok(options);
 }

@@ -7,6 +7,7 @@ import type { Analysis } from './analysis';
 export function toJson(analysis: Analysis): Record<string, unknown> {
   const { result, table, origin } = analysis;
   const common = {
+    kind: analysis.kind,
     test: result.test,
     n: result.n,
     df: result.df,
@@ -33,6 +34,25 @@ export function toJson(analysis: Analysis): Record<string, unknown> {
       }
       : null,
     exactNote: analysis.exactNote ?? null,
+    followUps: analysis.followUps ?? null,
+    paired: analysis.paired ?? null,
+    stratified: analysis.stratified
+      ? {
+        strata: analysis.stratified.strata.map((stratum, index) => ({
+          label: stratum.label,
+          observed: stratum.table.observed,
+          startLine: stratum.table.startLine,
+          n: analysis.stratified!.cmh.strata[index].n,
+          oddsRatio: analysis.stratified!.cmh.strata[index].oddsRatio ?? null,
+        })),
+        cmh: analysis.stratified.cmh.statistic,
+        cmhCorrected: analysis.stratified.cmh.corrected,
+        pooledOddsRatio: analysis.stratified.cmh.pooledOddsRatio ?? null,
+        breslowDay: analysis.stratified.cmh.breslowDay ?? null,
+        mantelFleiss: analysis.stratified.mantelFleiss,
+        strataSkipped: analysis.stratified.cmh.strataSkipped,
+      }
+      : null,
     warnings: analysis.warnings.map((w) => ({ code: w.code, message: w.message, location: w.location ?? null })),
     writeUp: analysis.writeUp,
     expectedTable: analysis.expectedTable,
@@ -55,6 +75,9 @@ export function toJson(analysis: Analysis): Record<string, unknown> {
       confidenceLevel: analysis.options.confidenceLevel,
       continuity: analysis.options.continuity,
       pValueMethod: analysis.options.pValueMethod,
+      design: analysis.options.design,
+      ordered: analysis.options.ordered,
+      pairwise: analysis.options.pairwise,
     },
   };
   if (result.test === 'independence') {

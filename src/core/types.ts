@@ -45,6 +45,10 @@ export type IssueCode =
   | 'sparse-fit'
   | 'rescaled-expected'
   | 'unreadable'
+  | 'paired-labels'
+  | 'heterogeneity'
+  | 'empty-strata'
+  | 'strata'
   | 'cancelled';
 
 export interface Issue {

@@ -16,7 +16,7 @@ export function withMarkup(analysis: Analysis, markup: AnalyzeOptions['markup'])
   return {
     ...analysis,
     options,
-    writeUp: writeUp(analysis.result, analysis.table, options, analysis.exact, analysis.exactNote),
+    writeUp: writeUp(analysis, options),
     expectedTable: expectedCountsTable(analysis.result, analysis.table, options),
     contributionsTable: contributionsTable(analysis.result, analysis.table, options),
   };

@@ -8,6 +8,7 @@ declare module 'jstat' {
     beta: { inv(p: number, alpha: number, beta: number): number; cdf(x: number, alpha: number, beta: number): number };
     hypgeom: { pdf(k: number, population: number, successes: number, draws: number): number };
     gammaln(x: number): number;
+    corrcoeff(x: number[], y: number[]): number;
     lowRegGamma(a: number, x: number): number;
   };
 }

@@ -1,3 +1,5 @@
+import { freemanHaltonExact } from '../exact/network/freemanHaltonExact';
+import type { Budget } from '../exact/types';
 import { testIndependence } from '../stats/testIndependence';
 import type { TailProbability } from '../types';
 import { adjustPValues, type AdjustmentMethod } from './adjustPValues';
@@ -13,12 +15,27 @@ export interface PairComparison {
   /** (c' − 1) with c' the columns kept; 0 when fewer than 2 columns or a row is empty (then p = 1). */
   df: number;
   p: TailProbability;
+  /** Where p comes from: Pearson's chi-square, or the exact test when the sub-table fails Cochran's rule and `exactWhenSparse` is set. */
+  pMethod: 'pearson' | 'exact';
   adjustedP: number;
   /** adjustedP ≤ alpha. */
   differs: boolean;
   /** Columns left out because both rows have 0 there. */
   droppedColumns: number;
 }
+
+export interface PairwiseOptions {
+  /**
+   * Use the Freeman–Halton exact p (Fisher's for 2×2) for a pair whose sub-table fails Cochran's
+   * rule; a search that exceeds its budget keeps the chi-square p (then `pMethod` stays 'pearson').
+   */
+  exactWhenSparse?: boolean;
+  /** Budget for each exact search (default 1 s, 64 MB). */
+  budget?: Partial<Budget>;
+}
+
+/** Per-pair exact searches are follow-ups: they get a small share of the time an overall test gets. */
+const PAIR_BUDGET: Partial<Budget> = { timeMs: 1000, memoryBytes: 64 * 1024 * 1024 };
 
 export interface PairwiseResult {
   method: AdjustmentMethod;
@@ -45,9 +62,10 @@ export interface PairwiseResult {
  * @param labels - one label per row
  * @param method - 'holm' or 'bonferroni'
  * @param alpha - family-wise level in (0, 1) for `differs`
+ * @param options - exact p-values for sparse pairs
  * @returns one comparison per pair, in order (0,1), (0,2), …, (1,2), …
  */
-export function pairwiseComparisons(observed: readonly (readonly number[])[], labels: readonly string[], method: AdjustmentMethod, alpha = 0.05): PairwiseResult {
+export function pairwiseComparisons(observed: readonly (readonly number[])[], labels: readonly string[], method: AdjustmentMethod, alpha = 0.05, options: PairwiseOptions = {}): PairwiseResult {
   const rows = observed.length;
   const columns = rows > 0 ? observed[0].length : 0;
   if (rows < 2 || columns < 2 || observed.some((row) => row.length !== columns)) throw new RangeError('pairwiseComparisons: needs a rectangular table of at least 2×2');
@@ -65,7 +83,10 @@ export function pairwiseComparisons(observed: readonly (readonly number[])[], la
       const kept = observed[first].map((_, column) => column).filter((column) => observed[first][column] + observed[second][column] > 0);
       const subTable = [kept.map((column) => observed[first][column]), kept.map((column) => observed[second][column])];
       const informative = kept.length >= 2 && subTable.every((row) => row.some((count) => count > 0));
-      const pearson = informative ? testIndependence(subTable).pearson : { statistic: 0, p: 1, log10p: 0 };
+      const test = informative ? testIndependence(subTable) : undefined;
+      const pearson = test ? test.pearson : { statistic: 0, p: 1, log10p: 0 };
+      const exact = test && options.exactWhenSparse && !test.validity.ok ? freemanHaltonExact(subTable, { ...PAIR_BUDGET, ...options.budget }) : undefined;
+      const p = exact?.ok ? { p: exact.value.p, log10p: exact.value.log10p } : { p: pearson.p, log10p: pearson.log10p };
       tests.push({
         first,
         second,
@@ -73,7 +94,8 @@ export function pairwiseComparisons(observed: readonly (readonly number[])[], la
         secondLabel: labels[second],
         statistic: pearson.statistic,
         df: informative ? kept.length - 1 : 0,
-        p: { p: pearson.p, log10p: pearson.log10p },
+        p,
+        pMethod: exact?.ok ? 'exact' : 'pearson',
         droppedColumns: columns - kept.length,
       });
     }

@@ -10,11 +10,17 @@ import { chiSquarePhrase } from './statisticPhrase';
  * association is not cause, observations must be independent, counts not percentages, and
  * health or safety decisions go through validated procedures.
  */
-export function cautionSentences(kind: 'independence' | 'goodness-of-fit'): string {
-  const first = kind === 'independence'
-    ? 'An association in counts is not evidence of cause.'
-    : 'A good fit does not prove the expected pattern holds; it only fails to contradict it.';
-  return `${first} The test assumes each observation was counted once, in one cell, independently of the others, and it applies to counts, not percentages. ` +
+export function cautionSentences(kind: 'independence' | 'goodness-of-fit' | 'paired' | 'stratified'): string {
+  const first = {
+    'independence': 'An association in counts is not evidence of cause.',
+    'goodness-of-fit': 'A good fit does not prove the expected pattern holds; it only fails to contradict it.',
+    'paired': 'A change between the two measurements is not by itself evidence of what caused it: learning, the season or the order of measurement can produce one.',
+    'stratified': 'Stratifying adjusts only for the variable that defines the strata; other differences between the groups remain, and an association is not evidence of cause.',
+  }[kind];
+  const unit = kind === 'paired'
+    ? 'The test assumes each unit was measured twice and counted once, independently of the other units, and it applies to counts, not percentages. '
+    : 'The test assumes each observation was counted once, in one cell, independently of the others, and it applies to counts, not percentages. ';
+  return `${first} ${unit}` +
     'For decisions about health or safety, follow your organisation\'s validated procedures and consult a qualified statistician.';
 }
 

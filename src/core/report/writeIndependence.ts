@@ -63,6 +63,7 @@ export function writeIndependence(
   report: AnalyzeOptions,
   exact?: ChosenPValue,
   exactNote?: string,
+  followUps: (significant: boolean) => string[] = () => [],
 ): string {
   const headline = independenceHeadline(result, report, exact);
   const significant = (exact?.p ?? result.p) < report.alpha;
@@ -85,6 +86,7 @@ export function writeIndependence(
   const continuity = continuitySentence(result, report);
   if (continuity) parts.push(continuity);
   parts.push(validitySentences(result.validity, result.mergeProposal, result.n, report, exact, exactNote));
+  parts.push(...followUps(significant));
   parts.push(cautionSentences('independence'));
   return parts.join(' ');
 }

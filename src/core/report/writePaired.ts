@@ -1,0 +1,60 @@
+import type { AnalyzeOptions, PairedAnalysis } from '../analysis';
+import type { CountTable } from '../types';
+import { cautionSentences } from './cautions';
+import { symbol } from './describe';
+import { formatFixed, formatNoLeadingZero, formatPValue } from './formatNumber';
+import { chiSquarePhrase } from './statisticPhrase';
+
+const LEADING_NAMES = { 'mid-p': 'mid-p', exact: 'exact conditional p', asymptotic: 'asymptotic p' } as const;
+
+/** The lead result in one phrase: "McNemar's test, mid-p = .041 (b = 5, c = 15)". */
+export function pairedHeadline(paired: PairedAnalysis, report: Pick<AnalyzeOptions, 'markup'>): string {
+  const P = symbol('p', report.markup);
+  const value = formatPValue(paired.leading.p).replace(/^p/, LEADING_NAMES[paired.leading.method].replace(/p$/, P));
+  return `McNemar's test, ${value} (${paired.discordant.b} and ${paired.discordant.c} discordant pairs)`;
+}
+
+/**
+ * The paragraph for a paired 2×2 (before/after on the same units): which pairs carry information,
+ * the leading p and the other two versions beside it, and the change in the share with its interval.
+ */
+export function writePaired(paired: PairedAnalysis, table: CountTable, report: AnalyzeOptions): string {
+  const headline = pairedHeadline(paired, report);
+  const significant = paired.leading.p < report.alpha;
+  if (report.style === 'line') return `${headline}; difference in paired proportions ${formatNoLeadingZero(paired.difference.newcombe.estimate, report.decimals)}.`;
+  const [first, second] = table.rowLabels;
+  const [firstAfter, secondAfter] = table.columnLabels;
+  const { b, c } = paired.discordant;
+  const n = paired.n;
+  const N = symbol('N', report.markup);
+  const P = symbol('p', report.markup);
+  const parts: string[] = [];
+  parts.push(
+    `We treated the table as paired: each of the ${N} = ${n.toLocaleString('en-US')} units was classified twice, first in the rows and then in the columns, ` +
+    `so only the ${(b + c).toLocaleString('en-US')} units whose answer changed carry information about a change: ` +
+    `${b.toLocaleString('en-US')} went from ${first} to ${secondAfter} and ${c.toLocaleString('en-US')} from ${second} to ${firstAfter}.`,
+  );
+  parts.push(significant
+    ? `A change this one-sided is unlikely by chance: ${headline}.`
+    : `The changes are not clearly one-sided: ${headline}. This does not show that nothing changed, only that these pairs cannot tell.`);
+  const others: string[] = [];
+  if (paired.leading.method !== 'mid-p') others.push(`mid-${P} ${formatPValue(paired.midP.p).replace(/^p /, '')}`);
+  if (paired.leading.method !== 'exact') others.push(`exact conditional ${formatPValue(paired.exact.p).replace(/^p/, P)}`);
+  if (paired.leading.method !== 'asymptotic') {
+    others.push(`asymptotic ${chiSquarePhrase(paired.chiSquare.statistic, 1, b + c, paired.chiSquare.p, report)} (over discordant pairs)`);
+  }
+  parts.push(`The other versions of the test give ${others.join('; ')}.`);
+  const difference = paired.difference.newcombe;
+  const level = `${Math.round(difference.level * 100)}% CI`;
+  const firstShare = (table.observed[0][0] + table.observed[0][1]) / n;
+  const secondShare = (table.observed[0][0] + table.observed[1][0]) / n;
+  parts.push(
+    `The share answering ${first} was ${formatFixed(firstShare * 100, 1)}% at the first measurement and ${formatFixed(secondShare * 100, 1)}%${firstAfter.trim().toLowerCase() === first.trim().toLowerCase() ? '' : ` (${firstAfter})`} at the second: ` +
+    `a difference of ${formatNoLeadingZero(difference.estimate, report.decimals)} (${level} ${formatNoLeadingZero(difference.lower, report.decimals)} to ${formatNoLeadingZero(difference.upper, report.decimals)}, Newcombe's interval for paired proportions).`,
+  );
+  if (b + c < 10) {
+    parts.push(`With only ${b + c} discordant pairs the test has little power; the exact and mid-${P} versions remain valid, the asymptotic one does not.`);
+  }
+  parts.push(cautionSentences('paired'));
+  return parts.join(' ');
+}
