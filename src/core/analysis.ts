@@ -45,6 +45,8 @@ export interface TableOrigin {
   crossTabulation?: {
     columns: [string, string];
     weightColumn?: string;
+    /** Set when the rows were split into strata by this column. */
+    stratumColumn?: string;
     rowsRead: number;
     rowsSkipped: number;
   };

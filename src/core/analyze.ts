@@ -1,5 +1,5 @@
 import type { Analysis, AnalyzeOptions, TableOrigin } from './analysis';
-import { analyzePaired, analyzeStrata, sumStrata, type LabelledStratum } from './designs/analyzeDesigns';
+import { analyzePaired, analyzeStrata, sumStrata } from './designs/analyzeDesigns';
 import { followUps as computeFollowUps, type FollowUps } from './designs/followUps';
 import { choosePValue, type SearchControl } from './exact/choosePValue';
 import { resolveOptions } from './options';
@@ -16,6 +16,9 @@ import { crossTabulateText, type CrossTabulation } from './table/crossTabulate';
 import { locateTable } from './table/locateTable';
 import { describeLocation } from './table/describeLocation';
 import { readCountTable } from './table/readCountTable';
+import { locateStrata } from './table/locateStrata';
+import { strataFromCrossTabulation } from './table/strataFromCrossTabulation';
+import type { LabelledStratum, StrataTables } from './table/strataTables';
 import { fail, ok, type CountTable, type Issue, type Result } from './types';
 
 export type DocumentFormat = 'markdown' | 'delimited' | 'text';
@@ -35,6 +38,8 @@ export interface AnalyzeRequest {
   /** Raw observations: the two columns to cross-tabulate, and an optional count/weight column. */
   columns?: [string, string];
   weight?: string;
+  /** Raw observations: the column naming each observation's stratum (implies the stratified design). */
+  stratum?: string;
   options?: Partial<AnalyzeOptions>;
   /** Cancellation and progress for exact and Monte Carlo searches. */
   control?: SearchControl;
@@ -48,8 +53,9 @@ const EXPECTED_LABEL = /^(expected|expected counts?|expect(ed)? n)$/i;
  * Never throws on bad input; every failure is an Issue naming the place and the remedy.
  */
 export function analyze(request: AnalyzeRequest): Result<Analysis> {
-  const options = resolveOptions(request.options);
+  const options = resolveOptions(request.stratum !== undefined ? { ...request.options, design: 'stratified' } : request.options);
   if (!options.ok) return options;
+  if (options.value.design === 'stratified') return analyzeStratifiedRequest(request, options.value);
   const table = readTable(request);
   if (!table.ok) return table;
   return analyzeCountTable(table.value.table, table.value.origin, request.fit, options.value, request.control);
@@ -87,10 +93,40 @@ function crossTabulate(request: AnalyzeRequest, origin: TableOrigin): Result<{ t
   return ok(splitCrossTabulation(tabulated.value, origin));
 }
 
+/** Several 2×2 tables in a row in the document, or raw data with a stratum column, tested together. */
+function analyzeStratifiedRequest(request: AnalyzeRequest, options: AnalyzeOptions): Result<Analysis> {
+  if (request.fit !== undefined) {
+    return fail({ code: 'bad-option', message: 'A stratified analysis compares two groups within each stratum; it cannot be combined with expected proportions. Drop one of the two.' });
+  }
+  if (request.format === 'delimited' && (request.stratum !== undefined || request.columns !== undefined)) {
+    const tabulated = crossTabulateText(request.text, { columns: request.columns, weight: request.weight, stratum: request.stratum });
+    if (!tabulated.ok) return tabulated;
+    return analyzeTabulatedStrata(tabulated.value, options);
+  }
+  const located = locateStrata(request.text, { format: request.format, line: request.line, selection: request.selection, tableIndex: request.tableIndex });
+  if (!located.ok) return located;
+  return analyzeLocatedStrata(located.value, { index: located.value.firstIndex, count: located.value.count }, options);
+}
+
+/** A cross-tabulation made with a stratum column, as strata (the CLI's streaming path enters here too). */
+export function analyzeTabulatedStrata(tabulation: CrossTabulation, options: AnalyzeOptions): Result<Analysis> {
+  const strata = strataFromCrossTabulation(tabulation);
+  if (!strata.ok) return strata;
+  const { origin } = splitCrossTabulation(tabulation);
+  return analyzeLocatedStrata(strata.value, origin, options);
+}
+
+function analyzeLocatedStrata(strata: StrataTables, origin: TableOrigin, options: AnalyzeOptions): Result<Analysis> {
+  const analysis = analyzeStrataTables(strata.strata, origin, options);
+  if (!analysis.ok) return analysis;
+  return ok({ ...analysis.value, warnings: [...strata.notes, ...analysis.value.warnings] });
+}
+
 /** A finished cross-tabulation as the count table to test and where it came from (the CLI's streaming path uses it too). */
 export function splitCrossTabulation(tabulation: CrossTabulation, origin: TableOrigin = { index: 1, count: 1 }): { table: CountTable; origin: TableOrigin } {
-  const { columnsUsed, weightColumn, rowsRead, rowsSkipped, ...table } = tabulation;
-  return { table, origin: { ...origin, crossTabulation: { columns: columnsUsed, weightColumn, rowsRead, rowsSkipped } } };
+  const { columnsUsed, weightColumn, rowsRead, rowsSkipped, stratumColumn, strata: _strata, ...table } = tabulation;
+  const crossTabulation = { columns: columnsUsed, weightColumn, rowsRead, rowsSkipped, ...(stratumColumn !== undefined ? { stratumColumn } : {}) };
+  return { table, origin: { ...origin, crossTabulation } };
 }
 
 /** Which row or column, if any, holds expected counts (a 2×k or k×2 table with one labelled "Expected"). */

@@ -1,15 +1,11 @@
 import type { AnalyzeOptions, PairedAnalysis, StratifiedAnalysis } from '../analysis';
 import { describeLocation } from '../table/describeLocation';
+import type { LabelledStratum } from '../table/strataTables';
 import { fail, ok, type CountTable, type Issue, type Result } from '../types';
 import { cochranMantelHaenszel, type StratumTable } from './cochranMantelHaenszel';
 import { mantelFleissCriterion } from './mantelFleissCriterion';
 import { mcnemarTest } from './mcnemarTest';
 
-/** One stratum as read from the document or a raw file. */
-export interface LabelledStratum {
-  label: string;
-  table: CountTable;
-}
 
 function asTwoByTwo(table: CountTable): StratumTable {
   const [[a, b], [c, d]] = table.observed;

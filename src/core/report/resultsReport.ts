@@ -2,6 +2,7 @@ import type { Analysis } from '../analysis';
 import { describePValueMethod } from '../exact/choosePValue';
 import { describeHypothesis } from './writeGoodnessOfFit';
 import { formatExactP, formatFixed, formatNoLeadingZero } from './formatNumber';
+import { designSections } from './designSections';
 import { renderTable } from './markdownTables';
 
 /** Observed counts with row and column totals (a single row or column gets no redundant total). */
@@ -59,18 +60,29 @@ export function statisticsLines(analysis: Analysis): string[] {
   return lines;
 }
 
+/** Heads the summed table's statistics in a stratified analysis, which are for comparison only. */
+export const STRATA_SUMMED = 'The strata summed, without adjustment (for comparison only):';
+
 /** The whole result as text or Markdown: statistics, tables, notes and the write-up. */
 export function resultsReport(analysis: Analysis): string {
   const { table, origin } = analysis;
   const where = table.format === 'crosstab' && origin.crossTabulation
-    ? `cross-tabulation of ${origin.crossTabulation.columns.join(' × ')}${origin.crossTabulation.weightColumn ? ` weighted by ${origin.crossTabulation.weightColumn}` : ''} (${origin.crossTabulation.rowsRead} rows)`
+    ? `cross-tabulation of ${origin.crossTabulation.columns.join(' × ')}${origin.crossTabulation.weightColumn ? ` weighted by ${origin.crossTabulation.weightColumn}` : ''}${origin.crossTabulation.stratumColumn ? `, in strata by ${origin.crossTabulation.stratumColumn}` : ''} (${origin.crossTabulation.rowsRead} rows)`
     : `table ${origin.index} of ${origin.count}, lines ${table.startLine}–${table.endLine}`;
+  const designs = designSections(analysis, analysis.options).map((section) => [
+    `${section.title}:`,
+    ...section.lines.map((line) => `- ${line}`),
+    ...(section.table ? ['', renderTable(section.table.header, section.table.rows, analysis.options.markup)] : []),
+  ].join('\n'));
+  // Expected counts and contributions of independence do not describe paired or stratified counts.
+  const independenceTables = analysis.kind === 'paired' || analysis.kind === 'stratified' ? [] : [analysis.expectedTable, analysis.contributionsTable];
+  const statistics = analysis.kind === 'paired' ? [] : [[...(analysis.kind === 'stratified' ? [STRATA_SUMMED] : []), ...statisticsLines(analysis)].join('\n')];
   const sections = [
     where,
-    statisticsLines(analysis).join('\n'),
+    ...designs,
+    ...statistics,
     observedTable(analysis),
-    analysis.expectedTable,
-    analysis.contributionsTable,
+    ...independenceTables,
   ];
   if (analysis.warnings.length > 0) {
     sections.push(['Notes:', ...analysis.warnings.map((w) => `- ${w.message}`)].join('\n'));

@@ -5,6 +5,12 @@ import { symbol } from './describe';
 import { formatFixed, formatNoLeadingZero, formatPValue } from './formatNumber';
 import { chiSquarePhrase } from './statisticPhrase';
 
+/** "+.11", "−.04", ".00": a signed share without the leading zero. */
+function formatSignedShare(value: number, decimals: number): string {
+  const text = formatNoLeadingZero(value, decimals);
+  return value > 0 && Number(value.toFixed(decimals)) !== 0 ? `+${text}` : text;
+}
+
 const LEADING_NAMES = { 'mid-p': 'mid-p', exact: 'exact conditional p', asymptotic: 'asymptotic p' } as const;
 
 /** The lead result in one phrase: "McNemar's test, mid-p = .041 (b = 5, c = 15)". */
@@ -21,7 +27,7 @@ export function pairedHeadline(paired: PairedAnalysis, report: Pick<AnalyzeOptio
 export function writePaired(paired: PairedAnalysis, table: CountTable, report: AnalyzeOptions): string {
   const headline = pairedHeadline(paired, report);
   const significant = paired.leading.p < report.alpha;
-  if (report.style === 'line') return `${headline}; difference in paired proportions ${formatNoLeadingZero(paired.difference.newcombe.estimate, report.decimals)}.`;
+  if (report.style === 'line') return `${headline}; change in the share of ${table.rowLabels[0]} ${formatSignedShare(-paired.difference.newcombe.estimate, report.decimals)}.`;
   const [first, second] = table.rowLabels;
   const [firstAfter, secondAfter] = table.columnLabels;
   const { b, c } = paired.discordant;
@@ -50,7 +56,8 @@ export function writePaired(paired: PairedAnalysis, table: CountTable, report: A
   const secondShare = (table.observed[0][0] + table.observed[1][0]) / n;
   parts.push(
     `The share answering ${first} was ${formatFixed(firstShare * 100, 1)}% at the first measurement and ${formatFixed(secondShare * 100, 1)}%${firstAfter.trim().toLowerCase() === first.trim().toLowerCase() ? '' : ` (${firstAfter})`} at the second: ` +
-    `a difference of ${formatNoLeadingZero(difference.estimate, report.decimals)} (${level} ${formatNoLeadingZero(difference.lower, report.decimals)} to ${formatNoLeadingZero(difference.upper, report.decimals)}, Newcombe's interval for paired proportions).`,
+    // Said as second minus first, the direction people read a before/after change in.
+    `a change of ${formatSignedShare(-difference.estimate, report.decimals)} (${level} ${formatSignedShare(-difference.upper, report.decimals)} to ${formatSignedShare(-difference.lower, report.decimals)}, Newcombe's interval for paired proportions).`,
   );
   if (b + c < 10) {
     parts.push(`With only ${b + c} discordant pairs the test has little power; the exact and mid-${P} versions remain valid, the asymptotic one does not.`);

@@ -29,7 +29,7 @@ function perStratumSentence(stratified: StratifiedAnalysis, report: Pick<Analyze
     value: stratum.oddsRatio,
   }));
   if (entries.length <= MAX_LISTED_STRATA) {
-    return `Stratum by stratum the odds ratios were ${entries.map((entry) => `${entry.text} (${entry.label})`).join(', ')}.`;
+    return `Stratum by stratum the odds ratios were ${entries.map((entry) => `${entry.label}: ${entry.text}`).join('; ')}.`;
   }
   const defined = entries.filter((entry) => entry.value !== undefined).map((entry) => entry.value!);
   if (defined.length === 0) return 'No stratum has a defined odds ratio on its own (each has a zero cell).';
@@ -56,7 +56,8 @@ function crudeSentence(stratified: StratifiedAnalysis, pooled: IndependenceResul
     : `Adding the strata together without adjustment gives a similar odds ratio (${formatFixed(crude, d)}).`;
 }
 
-function validitySentence(stratified: StratifiedAnalysis): string {
+/** The Mantel–Fleiss check in words, for the write-up and the panel. */
+export function mantelFleissSentence(stratified: StratifiedAnalysis): string {
   const check = stratified.mantelFleiss;
   const distances = `${formatFixed(check.expected - check.lowerBound, 1)} and ${formatFixed(check.upperBound - check.expected, 1)}`;
   const where = `The summed expected count (${formatFixed(check.expected, 1)}) lies ${distances} from the smallest and largest totals the margins allow`;
@@ -93,7 +94,7 @@ export function writeStratified(stratified: StratifiedAnalysis, pooledTable: Cou
   parts.push(homogeneitySentence(stratified, n, report));
   const crude = crudeSentence(stratified, pooled, report);
   if (crude) parts.push(crude);
-  parts.push(validitySentence(stratified));
+  parts.push(mantelFleissSentence(stratified));
   if (stratified.cmh.strataSkipped > 0) parts.push(`${stratified.cmh.strataSkipped} stratum with one observation or none was left out.`);
   parts.push(`With the continuity correction the test gives ${formatPValue(stratified.cmh.corrected.p).replace(/^p/, symbol('p', report.markup))}.`);
   parts.push(cautionSentences('stratified'));

@@ -153,7 +153,7 @@ function sameWidth(grid: RawGrid): boolean {
 }
 
 /** Aligned columns first; a delimiter when splitting on spaces leaves delimiters on the cells (`North,`) or none to split. */
-function readTextBlock(block: string, firstLine: number): Result<RawGrid> {
+export function readTextBlock(block: string, firstLine: number): Result<RawGrid> {
   const aligned = parseAligned(block, firstLine);
   const leavesDelimiters = aligned.ok && aligned.value.rows.some((row) => row.some((cell) => cell.text === '|' || /[,;]$/.test(cell.text)));
   if (aligned.ok && sameWidth(aligned.value) && !leavesDelimiters) return aligned;

@@ -11,6 +11,11 @@ export const MAX_TABLE_ROWS = 1000;
 export const MAX_TABLE_COLUMNS = 1000;
 export const MAX_TABLE_CELLS = 10000;
 
+export interface ReadCountTableOptions {
+  /** Keep rows and columns whose counts are all 0 instead of dropping them with a note (default false). */
+  keepZeroLines?: boolean;
+}
+
 /**
  * Turns a grid of cell texts into a table of counts with labels, deciding the layout and checking
  * every count.
@@ -34,9 +39,11 @@ export const MAX_TABLE_CELLS = 10000;
  * more than 1,000 rows or columns or 10,000 cells.
  *
  * @param grid - cells as found by a table parser
+ * @param options - `keepZeroLines`: keep all-zero rows and columns (a stratum of a stratified 2×2×K table may
+ *   have one; it then carries no information but still belongs to the layout)
  * @returns the count table, or the first problem found in reading order
  */
-export function readCountTable(grid: RawGrid): Result<CountTable> {
+export function readCountTable(grid: RawGrid, options: ReadCountTableOptions = {}): Result<CountTable> {
   const rows = grid.rows.filter((row) => row.length > 0);
   const tableStart: SourceLocation = rows[0]?.[0] ?? { line: grid.startLine, column: 1 };
   if (rows.length === 0 || rows.every((row) => row.every((cell) => cell.text === ''))) {
@@ -100,7 +107,7 @@ export function readCountTable(grid: RawGrid): Result<CountTable> {
   }
 
   const locations = dataRows.map((rowIndex) => dataColumns.map((column) => ({ line: body[rowIndex][column].line, column: body[rowIndex][column].column })));
-  const table = dropZeroLines({ observed, locations, rowLabels, columnLabels }, warnings);
+  const table = options.keepZeroLines ? { observed, locations, rowLabels, columnLabels } : dropZeroLines({ observed, locations, rowLabels, columnLabels }, warnings);
   if (table.observed.length * table.columnLabels.length < 2) {
     const only = table.locations[0][0];
     return failAt(only, 'too-few-categories', 'this table has a single count; a test needs at least two categories. Add the other rows or columns.');

@@ -2,6 +2,7 @@ import assert from 'node:assert/strict';
 import fc from 'fast-check';
 import { parse } from 'csv-parse/sync';
 import { BLANK_LABEL, createCrossTabulator, crossTabulateText, MAX_CATEGORIES, type CrossTabulateOptions, type CrossTabulation } from '../../../src/core/table/crossTabulate';
+import { strataFromCrossTabulation } from '../../../src/core/table/strataFromCrossTabulation';
 import type { Result } from '../../../src/core/types';
 import { generateRawCsv } from '../../../bench/generateRawCsv';
 
@@ -204,6 +205,7 @@ describe('crossTabulate', () => {
       const options = fc.record({
         columns: fc.option(fc.tuple(fc.constantFrom('a', 'b', 'A', ' b ', 'x', ''), fc.constantFrom('a', 'b', 'c', 'x')), { nil: undefined }),
         weight: fc.option(fc.constantFrom('n', 'b', 'c', 'zz'), { nil: undefined }),
+        stratum: fc.option(fc.constantFrom('a', 'c', 'n', 'zz', ' '), { nil: undefined }),
         delimiter: fc.option(fc.constantFrom(',', ';', '\t', '"', '', ',,', '\n', 'a'), { nil: undefined }),
         firstLine: fc.option(fc.constantFrom(1, 7, 0, -3, 2.5, Number.NaN), { nil: undefined }),
       }, { requiredKeys: [] });
@@ -223,6 +225,10 @@ describe('crossTabulate', () => {
               for (const count of row) assert.ok(Number.isSafeInteger(count) && count >= 0, String(count));
             }
             assert.ok(table.endLine >= table.startLine);
+            for (const stratum of table.strata ?? []) {
+              assert.ok(stratum.label.trim() !== '');
+              assert.deepEqual(stratum.observed.map((row) => row.length), table.observed.map((row) => row.length));
+            }
           } else {
             const { location, message } = result.issue;
             assert.ok(location !== undefined && Number.isInteger(location.line) && location.line >= 1 && Number.isInteger(location.column) && location.column >= 1, JSON.stringify(result.issue));
@@ -382,6 +388,134 @@ describe('crossTabulate', () => {
       assert.equal(table.warnings.length, 1);
       assert.equal(table.warnings[0].code, 'raw-data');
       assert.match(table.warnings[0].message, /'count'/);
+    });
+  });
+
+  describe('strata', () => {
+    /** The reference for a stratified tally: csv-parse's records grouped by the stratum value, rows with an empty one left out. */
+    function referenceStrata(text: string, delimiter: string, rowColumn: number, columnColumn: number, stratumColumn: number): { labels: string[]; counts: Map<string, number>; records: number; blankStrata: number } {
+      const records = parse(text, { delimiter, bom: true, skip_empty_lines: true, record_delimiter: ['\r\n', '\n', '\r'] }) as string[][];
+      const labels: string[] = [];
+      const counts = new Map<string, number>();
+      let blankStrata = 0;
+      for (const record of records.slice(1)) {
+        const stratum = record[stratumColumn].trim();
+        if (stratum === '') {
+          blankStrata++;
+          continue;
+        }
+        if (!labels.includes(stratum)) labels.push(stratum);
+        const key = JSON.stringify([stratum, record[rowColumn].trim() || BLANK_LABEL, record[columnColumn].trim() || BLANK_LABEL]);
+        counts.set(key, (counts.get(key) ?? 0) + 1);
+      }
+      return { labels, counts, records: records.length - 1, blankStrata };
+    }
+
+    const stratifiedModel = documentModel.filter((model) => model.header.length >= 3);
+
+    it('tabulates each stratum as csv-parse plus a plain loop does, and the strata add up to the whole table (fast-check, 300 runs)', () => {
+      fc.assert(
+        fc.property(stratifiedModel, fc.nat(), fc.array(fc.nat(), { maxLength: 12 }), (model, pick, cuts) => {
+          const text = renderDocument(model);
+          const count = model.header.length;
+          const stratumColumn = pick % count;
+          const rowColumn = (stratumColumn + 1) % count;
+          const columnColumn = (stratumColumn + 2) % count;
+          const options: CrossTabulateOptions = { columns: [model.header[rowColumn], model.header[columnColumn]], stratum: model.header[stratumColumn] };
+          const result = tabulateInPieces(text, cuts, options);
+          const reference = referenceStrata(text, model.delimiter, rowColumn, columnColumn, stratumColumn);
+          if (reference.records === reference.blankStrata) {
+            assert.equal(result.ok ? 'ok' : result.issue.code, 'empty-cell', 'every row lacks a stratum');
+            return;
+          }
+          const table = expectOk(result);
+          const strata = table.strata ?? assert.fail('no strata');
+          assert.equal(table.stratumColumn, model.header[stratumColumn]);
+          assert.deepEqual(strata.map((stratum) => stratum.label), reference.labels, 'stratum labels in order of first appearance');
+          for (const stratum of strata) {
+            assert.equal(stratum.observed.length, table.rowLabels.length);
+            table.rowLabels.forEach((rowLabel, r) => table.columnLabels.forEach((columnLabel, c) => {
+              assert.equal(stratum.observed[r][c], reference.counts.get(JSON.stringify([stratum.label, rowLabel, columnLabel])) ?? 0, `${stratum.label}: ${rowLabel} × ${columnLabel}`);
+            }));
+          }
+          const summed = table.observed.map((row, r) => row.map((_, c) => strata.reduce((sum, stratum) => sum + stratum.observed[r][c], 0)));
+          assert.deepEqual(summed, table.observed);
+          assert.equal(table.rowsRead - table.rowsSkipped, reference.records - reference.blankStrata);
+          if (reference.blankStrata === 0) {
+            // With every stratum filled in, the strata add up to the unstratified table too.
+            const unstratified = expectOk(crossTabulateText(text, { columns: options.columns }));
+            assert.deepEqual(table.observed, unstratified.observed);
+            assert.deepEqual(table.rowLabels, unstratified.rowLabels);
+          } else {
+            assert.ok(table.warnings.some((warning) => warning.code === 'empty-cell' && /stratum column/.test(warning.message)));
+          }
+        }),
+        { seed: 20261202, numRuns: 300 },
+      );
+    });
+
+    it('weights stratified rows, chooses the crossed columns around the stratum column, and skips rows without a stratum', () => {
+      const lines = ['van,shift,late,crates'];
+      for (let k = 0; k < 60; k++) lines.push(`${['Blue', 'Red'][k % 2]},${k % 7 === 0 ? '' : ['early', 'late', 'night'][k % 3]},${k % 5 ? 'no' : 'yes'},${1 + (k % 4)}`);
+      const table = expectOk(crossTabulateText(lines.join('\n'), { stratum: 'SHIFT', weight: 'crates' }));
+      assert.deepEqual(table.columnsUsed, ['van', 'late']);
+      assert.equal(table.stratumColumn, 'shift');
+      const strata = table.strata ?? assert.fail('no strata');
+      assert.deepEqual(strata.map((stratum) => stratum.label), ['late', 'night', 'early']);
+      // Hand tally of the rule above: rows k = 0, 7, ..., 56 (9 rows) have no shift.
+      assert.equal(table.rowsSkipped, 9);
+      let expectedTotal = 0;
+      for (let k = 0; k < 60; k++) if (k % 7 !== 0) expectedTotal += 1 + (k % 4);
+      assert.equal(table.observed.flat().reduce((sum, value) => sum + value, 0), expectedTotal);
+      const warning = table.warnings.find((item) => /stratum column 'shift'/.test(item.message));
+      assert.ok(warning);
+      assert.match(warning.message, /^9 rows have no value in the stratum column 'shift'/);
+      assert.deepEqual(warning.location, { line: 2, column: 6 });
+    });
+
+    it('names an unknown stratum column and lists the available ones, and refuses clashing choices', () => {
+      const text = 'van,shift,late\nBlue,early,no\n';
+      const message = expectIssue(crossTabulateText(text, { stratum: 'route' }), 'unknown-column', 1, 1);
+      assert.match(message, /no column named 'route' for the strata/);
+      assert.match(message, /'van', 'shift', 'late'/);
+      expectIssue(crossTabulateText(text, { columns: ['van', 'late'], stratum: 'van' }), 'bad-option', 1, 1);
+      expectIssue(crossTabulateText(text, { columns: ['van', 'late'], stratum: 'late', weight: 'late' }), 'bad-option', 1, 1);
+      expectIssue(crossTabulateText(text, { stratum: ' ' }), 'bad-option', 1, 1);
+      expectIssue(crossTabulateText('van,shift,late\nBlue,,no\nRed, ,yes\n', { columns: ['van', 'late'], stratum: 'shift' }), 'empty-cell', 2, 6);
+    });
+
+    it('leaves the result without strata when no stratum column is chosen', () => {
+      const table = expectOk(crossTabulateText('van,late\nBlue,no\n'));
+      assert.equal('strata' in table, false);
+      assert.equal('stratumColumn' in table, false);
+    });
+
+    describe('strataFromCrossTabulation', () => {
+      const deliveries = ['van,shift,late', 'Blue,early,no', 'Red,early,yes', 'Blue,early,yes', 'Red,night,no', 'Red,night,no', 'Blue,night,yes'].join('\n');
+
+      it('gives one 2×2 table per stratum on the shared labels, with zeros for absent combinations', () => {
+        const tabulation = expectOk(crossTabulateText(deliveries, { columns: ['van', 'late'], stratum: 'shift' }));
+        const result = strataFromCrossTabulation(tabulation);
+        if (!result.ok) assert.fail(result.issue.message);
+        const strata = result.value;
+        assert.deepEqual(strata.rowLabels, ['Blue', 'Red']);
+        assert.deepEqual(strata.columnLabels, ['no', 'yes']);
+        assert.deepEqual(strata.strata.map((stratum) => [stratum.label, stratum.table.observed]), [['early', [[1, 1], [0, 1]]], ['night', [[0, 1], [2, 0]]]]);
+        assert.deepEqual([strata.firstIndex, strata.lastIndex, strata.count, strata.startLine, strata.endLine], [1, 1, 1, 1, 7]);
+      });
+
+      it('refuses a table that is not 2×2, a single stratum, and a tabulation without strata, saying what to do', () => {
+        const threeGroups = expectOk(crossTabulateText(`${deliveries}\nGreen,night,no`, { columns: ['van', 'late'], stratum: 'shift' }));
+        const wide = strataFromCrossTabulation(threeGroups);
+        assert.equal(wide.ok, false);
+        if (!wide.ok) assert.match(wide.issue.message, /^The group column 'van' has 3 values \("Blue", "Green", "Red"\); a stratified analysis needs exactly two groups and two outcomes/);
+        const oneShift = strataFromCrossTabulation(expectOk(crossTabulateText(deliveries.split('\n').slice(0, 4).join('\n'), { columns: ['van', 'late'], stratum: 'shift' })));
+        assert.equal(oneShift.ok, false);
+        if (!oneShift.ok) assert.match(oneShift.issue.message, /'shift' has only one value \("early"\)/);
+        const plain = strataFromCrossTabulation(expectOk(crossTabulateText(deliveries, { columns: ['van', 'late'] })));
+        assert.equal(plain.ok, false);
+        if (!plain.ok) assert.equal(plain.issue.code, 'bad-option');
+      });
     });
   });
 });

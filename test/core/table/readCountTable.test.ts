@@ -197,6 +197,18 @@ describe('readCountTable', () => {
       assert.match(column.message, /the column "Cancelled" was left out/);
     });
 
+    it('keeps all-zero rows and columns with keepZeroLines, as a stratum of a stratified design needs', () => {
+      const document = '| Tram | Early | Late | Cancelled |\n|---|---|---|---|\n| T4 | 7 | 2 | 0 |\n| T5 | 0 | 0 | 0 |\n| T6 | 3 | 8 | 0 |\n';
+      const value = table(readCountTable(markdownGrid(document), { keepZeroLines: true }));
+      assert.deepEqual(value.observed, [[7, 2, 0], [0, 0, 0], [3, 8, 0]]);
+      assert.deepEqual(value.rowLabels, ['T4', 'T5', 'T6']);
+      assert.deepEqual(value.columnLabels, ['Early', 'Late', 'Cancelled']);
+      assert.deepEqual(value.warnings, []);
+      assertPointsAt(document, value.cellLocations![1][2], '0 |');
+      const empty = '| Tram | Early |\n|---|---|\n| T4 | 0 |\n| T5 | 0 |\n';
+      expectFailure(empty, readCountTable(markdownGrid(empty), { keepZeroLines: true }), 'all-zero-table', '0', /every count in this table is 0/);
+    });
+
     it('keeps zero categories of a one-row table, whose expected counts come from the hypothesis', () => {
       const value = table(readCountTable(markdownGrid('| Red | Blue | Black |\n|---|---|---|\n| 40 | 0 | 10 |\n')));
       assert.deepEqual(value.observed, [[40, 0, 10]]);
