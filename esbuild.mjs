@@ -32,6 +32,12 @@ await Promise.all([
     entryPoints: ['src/extension/analysisWorker.ts'],
     outfile: 'dist/analysisWorker.js',
   }),
+  // The Monte Carlo pool's threads, started by the analysis worker and by the CLI (src/node/).
+  esbuild.build({
+    ...nodeBundle,
+    entryPoints: ['src/node/monteCarloPoolWorker.ts'],
+    outfile: 'dist/monteCarloPoolWorker.js',
+  }),
   esbuild.build({
     ...common,
     entryPoints: ['src/webview/main.ts'],

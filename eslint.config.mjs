@@ -26,4 +26,16 @@ export default tseslint.config(
       }],
     },
   },
+  {
+    // Node hosts shared by the extension's worker and the CLI: Node modules yes, the editor no.
+    files: ['src/node/**/*.ts'],
+    rules: {
+      'no-restricted-imports': ['error', {
+        patterns: [
+          { group: ['vscode'], message: 'src/node runs in the CLI too: no editor API.' },
+          { group: ['**/extension/**', '**/webview/**', '**/cli/**'], message: 'src/node imports only the core and Node.' },
+        ],
+      }],
+    },
+  },
 );

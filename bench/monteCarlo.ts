@@ -1,11 +1,16 @@
 /**
  * Monte Carlo throughput: Patefield tables per second (sampler plus the probability criterion, as
  * monteCarloIndependence runs it), the time for 9,999 replicates of large tables, and multinomial
- * outcomes per second for goodness of fit. One thread; targets from the issue.
+ * outcomes per second for goodness of fit, on one thread; targets from the issue. Then the worker
+ * pool (src/node/monteCarloPool.ts): tables per second for 99,999 replicates in this thread, on one
+ * and on two pool threads, and the speed-up of two pool threads over one (fresh threads both, so the
+ * ratio is not flattered by this process's JIT history; no target: it depends on the free cores).
  */
 import { tableFromWeights } from '../test/helpers/randomTables';
 import { monteCarloGoodnessOfFit } from '../src/core/exact/monteCarloGoodnessOfFit';
 import { monteCarloIndependence } from '../src/core/exact/monteCarloIndependence';
+import type { MonteCarloBlockHook } from '../src/core/exact/monteCarloJobSpec';
+import { createMonteCarloPool } from '../src/node/monteCarloPool';
 import { medianMs, seededRandom, type Figure } from './timing';
 
 const SEED = 20240612;
@@ -43,7 +48,54 @@ function outcomesPerSecond(categories: number, total: number): number {
   return (REPLICATES_PER_CALL / ms) * 1000;
 }
 
-export function benchMonteCarlo(): Figure[] {
+/** Replicates of the pool figures: a realistic long run (100 blocks). */
+const POOL_REPLICATES = 99_999;
+/** Timed runs per configuration after one warm-up run each (which also starts the threads); medians are shown. */
+const POOL_RUNS = 5;
+
+/**
+ * Tables per second for each block hook (undefined: this thread), the runs interleaved so that a
+ * shared machine's changing load falls on every configuration alike.
+ */
+function interleavedTablesPerSecond(table: number[][], hooks: (MonteCarloBlockHook | undefined)[]): number[] {
+  const once = (runBlocks: MonteCarloBlockHook | undefined): number => {
+    const start = performance.now();
+    const result = monteCarloIndependence(table, { replicates: POOL_REPLICATES, seed: 4, runBlocks, budget: { timeMs: 600_000 } });
+    if (!result.ok) throw new Error(`benchmark run stopped: ${result.reason}`);
+    return performance.now() - start;
+  };
+  hooks.forEach(once);
+  const times = hooks.map((): number[] => []);
+  for (let run = 0; run < POOL_RUNS; run++) hooks.forEach((hook, k) => times[k].push(once(hook)));
+  return times.map((list) => {
+    list.sort((a, b) => a - b);
+    return (POOL_REPLICATES / list[Math.floor(list.length / 2)]) * 1000;
+  });
+}
+
+async function poolFigures(): Promise<Figure[]> {
+  const figures: Figure[] = [];
+  const pools = [createMonteCarloPool({ threads: 1 }), createMonteCarloPool({ threads: 2 })];
+  try {
+    for (const [rows, columns, total] of [
+      [5, 5, 1000],
+      [10, 10, 1000],
+    ]) {
+      const table = randomTable(rows, columns, total, SEED + rows * 100 + columns);
+      const label = `${rows}×${columns}, N = ${total.toLocaleString('en')}, 99,999 replicates`;
+      const [here, one, two] = interleavedTablesPerSecond(table, [undefined, pools[0].runBlocks, pools[1].runBlocks]);
+      figures.push({ name: `Patefield ${label}, in this thread`, value: here, unit: 'tables/s' });
+      figures.push({ name: `Patefield ${label}, 1 pool thread`, value: one, unit: 'tables/s' });
+      figures.push({ name: `Patefield ${label}, 2 pool threads`, value: two, unit: 'tables/s' });
+      figures.push({ name: `speed-up of 2 pool threads over 1, ${rows}×${columns}`, value: two / one, unit: '×' });
+    }
+  } finally {
+    await Promise.all(pools.map((pool) => pool.close()));
+  }
+  return figures;
+}
+
+export async function benchMonteCarlo(): Promise<Figure[]> {
   const figures: Figure[] = [];
   for (const [rows, columns, total] of [
     [2, 2, 100],
@@ -64,5 +116,6 @@ export function benchMonteCarlo(): Figure[] {
   }
   figures.push({ name: 'multinomial outcomes, k = 6, N = 100', value: outcomesPerSecond(6, 100), unit: 'draws/s' });
   figures.push({ name: 'multinomial outcomes, k = 20, N = 2,000', value: outcomesPerSecond(20, 2000), unit: 'draws/s' });
+  figures.push(...(await poolFigures()));
   return figures;
 }

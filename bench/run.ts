@@ -4,6 +4,7 @@
  */
 import { benchAnalysis } from './analysis';
 import { benchCrossTabulate } from './crossTabulate';
+import { benchDesigns } from './designs';
 import { benchExactMultinomial } from './exactMultinomial';
 import { benchExtension } from './extension';
 import { benchFisher } from './fisher';
@@ -31,9 +32,10 @@ async function main(): Promise<void> {
     ['Streaming cross-tabulation (1,000,000 rows)', benchCrossTabulate],
     ["Fisher's exact test, 2×2", benchFisher],
     ['Freeman–Halton exact test, r×c (worst of several tables per size)', benchNetworkExact],
-    ['Monte Carlo p-values, one thread', benchMonteCarlo],
+    ['Monte Carlo p-values: one thread, and the worker pool', benchMonteCarlo],
     ['Exact multinomial goodness of fit', benchExactMultinomial],
     ['Study planning', benchPlan],
+    ['Designs: strata, exact stratified test, pairwise comparisons', benchDesigns],
     ['Extension: bundle sizes, activation, table to panel view', benchExtension],
   ];
   const only = process.argv.slice(2);

@@ -3,6 +3,7 @@ import * as path from 'node:path';
 import { describeIssue, formatForFile, runAnalyze } from './runAnalyze';
 import { resultsReport } from '../core/report/resultsReport';
 import { toJson } from '../core/toJson';
+import type { AnalyzeOptions } from '../core/analysis';
 
 /** One demo step: a bundled example file and what to ask of it (examples/demo.json). */
 interface DemoStep {
@@ -13,6 +14,10 @@ interface DemoStep {
   fit?: string;
   columns?: [string, string];
   weight?: string;
+  /** Raw data: the column naming each observation's stratum. */
+  stratum?: string;
+  /** Design options, e.g. { "design": "paired" } or { "ordered": "columns", "columnScores": [1, 2, 3] }. */
+  options?: Partial<AnalyzeOptions>;
 }
 
 /** Analyses each bundled example as the manifest says and prints the reports. Returns the exit code. */
@@ -31,8 +36,9 @@ export async function runDemo(examplesDir: string, json: boolean): Promise<numbe
       fit: step.fit,
       columns: step.columns,
       weight: step.weight,
+      stratum: step.stratum,
       json,
-      options: {},
+      options: step.options ?? {},
     });
     const shown = path.join('examples', step.file);
     if (!result.ok) {

@@ -16,7 +16,7 @@ function printAnalysis(file: string, analysis: Analysis, json: boolean): void {
     return;
   }
   process.stdout.write(`${file}: ${resultsReport(analysis)}\n`);
-  if (analysis.origin.count > 1 && analysis.table.format !== 'crosstab') {
+  if (analysis.origin.count > 1 && analysis.table.format !== 'crosstab' && analysis.kind !== 'stratified') {
     process.stdout.write(`\n(${analysis.origin.count} tables in this file; choose another with --table K or --line N.)\n`);
   }
 }

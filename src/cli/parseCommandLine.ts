@@ -4,12 +4,14 @@ import type { AnalyzeRequest, DocumentFormat } from '../core/analyze';
 import { DEFAULT_SEED, type PValueMethod } from '../core/exact/choosePValue';
 
 /** What `tallywise analyze` asks of the engine: the file, how to print, and the request's own fields. */
-export type AnalyzeCommand = Pick<AnalyzeRequest, 'line' | 'selection' | 'tableIndex' | 'fit' | 'columns' | 'weight'> & {
+export type AnalyzeCommand = Pick<AnalyzeRequest, 'line' | 'selection' | 'tableIndex' | 'fit' | 'columns' | 'weight' | 'stratum'> & {
   kind: 'analyze';
   file: string;
   format?: DocumentFormat;
   json: boolean;
   options: Partial<AnalyzeOptions>;
+  /** Monte Carlo threads (--threads); undefined means automatic. */
+  threads?: number;
 };
 
 /** `tallywise plan`: what to plan from; the core checks the values themselves. */
@@ -56,6 +58,17 @@ What to test:
   --columns A,B       raw data (one row per observation): cross-tabulate columns A and B
   --weight COL        raw data: a column holding how many observations each row stands for
 
+How the counts were collected (see README, "Designs"):
+  --design D          independent (default) | paired (a 2×2 of the same units measured twice:
+                      McNemar) | stratified (several 2×2 tables one after another, or raw data
+                      with --stratum: Cochran–Mantel–Haenszel)
+  --stratum COL       raw data: the column naming each observation's stratum (site, shift...)
+  --ordered D         rows | columns | both | none (default: labels that read as numbers or
+                      ranges count as ordered); ordered dimensions get a trend test
+  --scores LIST       scores of the ordered dimension, e.g. 0,1,2,5 (default 0, 1, 2, ...);
+                      --row-scores and --column-scores when both are ordered
+  --pairwise M        holm (default) | bonferroni | off: which groups differ, two at a time
+
 Numbers and wording:
   --alpha X           significance level (default 0.05)
   --confidence X      confidence level for intervals (default 0.95)
@@ -65,6 +78,7 @@ Numbers and wording:
   --replicates R      Monte Carlo replicates (default 45,999: p near .05 to about ±.002)
   --seed S            Monte Carlo seed (default ${DEFAULT_SEED}; reported with the result)
   --exact-time MS     time limit for an exact search before Monte Carlo takes over (default 5000)
+  --threads N         threads for Monte Carlo simulation (default: the cores, at most 4; any N gives the same p)
   --decimals N        decimals for statistics (default 2)
   --one-line          a one-line result instead of the paragraph
   --plain             plain text write-up (no Markdown emphasis)
@@ -114,6 +128,13 @@ export function parseCommandLine(argv: string[]): Parsed {
         fit: { type: 'string' },
         columns: { type: 'string' },
         weight: { type: 'string' },
+        design: { type: 'string' },
+        stratum: { type: 'string' },
+        ordered: { type: 'string' },
+        scores: { type: 'string' },
+        'row-scores': { type: 'string' },
+        'column-scores': { type: 'string' },
+        pairwise: { type: 'string' },
         alpha: { type: 'string' },
         confidence: { type: 'string' },
         yates: { type: 'boolean' },
@@ -122,6 +143,7 @@ export function parseCommandLine(argv: string[]): Parsed {
         replicates: { type: 'string' },
         seed: { type: 'string' },
         'exact-time': { type: 'string' },
+        threads: { type: 'string' },
         'one-line': { type: 'boolean' },
         plain: { type: 'boolean' },
         json: { type: 'boolean' },
@@ -166,6 +188,7 @@ export function parseCommandLine(argv: string[]): Parsed {
     replicates: parseWhole('replicates', values.replicates),
     seed: parseNumber('seed', values.seed),
     exactTime: parseNumber('exact-time', values['exact-time']),
+    threads: parseWhole('threads', values.threads),
   };
   for (const value of Object.values(numbers)) if (typeof value === 'string') return { ok: false, message: value };
 
@@ -203,6 +226,9 @@ export function parseCommandLine(argv: string[]): Parsed {
     }
     options.pValueMethod = method as PValueMethod;
   }
+  const design = parseDesignFlags(values);
+  if (typeof design === 'string') return { ok: false, message: design };
+  Object.assign(options, design);
   if (values.yates) options.continuity = 'yates';
   if (values['one-line']) options.style = 'line';
   if (values.plain) options.markup = 'plain';
@@ -218,10 +244,40 @@ export function parseCommandLine(argv: string[]): Parsed {
       fit: values.fit,
       columns,
       weight: values.weight,
+      stratum: values.stratum,
       json: values.json === true,
       options,
+      threads: numbers.threads as number | undefined,
     },
   };
+}
+
+/** --design, --ordered, --scores, --pairwise → engine options; the engine checks what fits the table. */
+function parseDesignFlags(values: Record<string, string | boolean | undefined>): Partial<AnalyzeOptions> | string {
+  const text = (name: string) => values[name] as string | undefined;
+  const out: Partial<AnalyzeOptions> = {};
+  const choices = [['design', ['independent', 'paired', 'stratified']], ['ordered', ['auto', 'none', 'rows', 'columns', 'both']], ['pairwise', ['holm', 'bonferroni', 'off']]] as const;
+  for (const [name, allowed] of choices) {
+    const value = text(name);
+    if (value === undefined) continue;
+    if (!(allowed as readonly string[]).includes(value)) return `--${name} must be ${allowed.slice(0, -1).join(', ')} or ${allowed[allowed.length - 1]} (got "${value}").`;
+    (out as Record<string, unknown>)[name] = value;
+  }
+  if (values.stratum !== undefined && out.design === undefined) out.design = 'stratified';
+  const lists = { scores: parseNumberList('scores', text('scores')), row: parseNumberList('row-scores', text('row-scores')), column: parseNumberList('column-scores', text('column-scores')) };
+  for (const list of Object.values(lists)) if (typeof list === 'string') return list;
+  if (lists.scores !== undefined && (lists.row !== undefined || lists.column !== undefined)) {
+    return '--scores is for a table with one ordered dimension; with --row-scores or --column-scores, give both of those instead.';
+  }
+  if (lists.row !== undefined) out.rowScores = lists.row as number[];
+  if (lists.column !== undefined) out.columnScores = lists.column as number[];
+  if (lists.scores !== undefined) {
+    // One list of scores belongs to the one ordered dimension; rows only when the user says so.
+    if (out.ordered === 'rows') out.rowScores = lists.scores as number[];
+    else out.columnScores = lists.scores as number[];
+    if (out.ordered === undefined) out.ordered = 'columns';
+  }
+  return out;
 }
 
 const PLAN_ONLY_FLAGS = ['w', 'df', 'power', 'groups', 'allocation', 'anticipated', 'null', 'p1', 'p2', 'difference', 'ratio', 'odds-ratio', 'sensitivity', 'n'] as const;

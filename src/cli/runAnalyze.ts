@@ -1,11 +1,13 @@
 import * as fs from 'node:fs';
 import * as path from 'node:path';
-import { analyze, analyzeCountTable, splitCrossTabulation, type AnalyzeRequest, type DocumentFormat } from '../core/analyze';
+import { analyze, analyzeCountTable, analyzeTabulatedStrata, splitCrossTabulation, type AnalyzeRequest, type DocumentFormat } from '../core/analyze';
 import type { Analysis } from '../core/analysis';
 import type { SearchControl } from '../core/exact/choosePValue';
 import { resolveOptions } from '../core/options';
 import { createCrossTabulator } from '../core/table/crossTabulate';
 import type { Issue, Result } from '../core/types';
+import { monteCarloThreadCount } from '../node/monteCarloThreadCount';
+import { searchControlWithPool } from '../node/searchControlWithPool';
 import type { AnalyzeCommand } from './parseCommandLine';
 
 /** Delimited files larger than this are streamed through the cross-tabulator instead of read whole. */
@@ -38,13 +40,24 @@ function readInput(file: string): Result<string> {
 async function streamRawData(command: AnalyzeCommand): Promise<Result<Analysis>> {
   const options = resolveOptions(command.options);
   if (!options.ok) return options;
-  const tabulator = createCrossTabulator({ columns: command.columns, weight: command.weight });
+  const tabulator = createCrossTabulator({ columns: command.columns, weight: command.weight, stratum: command.stratum });
   const stream = fs.createReadStream(command.file, { encoding: 'utf8', highWaterMark: STREAM_CHUNK_BYTES });
   for await (const chunk of stream) tabulator.push(chunk as string);
   const tabulated = tabulator.finish();
   if (!tabulated.ok) return tabulated;
+  if (command.stratum !== undefined) return analyzeTabulatedStrata(tabulated.value, { ...options.value, design: 'stratified' });
   const { table, origin } = splitCrossTabulation(tabulated.value);
-  return analyzeCountTable(table, origin, command.fit, options.value, terminalProgress());
+  return withPool(command, (control) => analyzeCountTable(table, origin, command.fit, options.value, control));
+}
+
+/** Runs the engine with Monte Carlo blocks spread over --threads worker threads (one: in this thread). */
+async function withPool(command: AnalyzeCommand, run: (control: SearchControl) => Result<Analysis>): Promise<Result<Analysis>> {
+  const pooled = searchControlWithPool(terminalProgress(), monteCarloThreadCount(command.threads));
+  try {
+    return run(pooled.control);
+  } finally {
+    await pooled.close();
+  }
 }
 
 function shouldStream(command: AnalyzeCommand, format: DocumentFormat): boolean {
@@ -83,9 +96,9 @@ export async function runAnalyze(command: AnalyzeCommand): Promise<Result<Analys
     fit: command.fit,
     columns: command.columns,
     weight: command.weight,
+    stratum: command.stratum,
     options: command.options,
-    control: terminalProgress(),
   };
-  return analyze(request);
+  return withPool(command, (control) => analyze({ ...request, control }));
 }
 

@@ -1,6 +1,7 @@
 import type { CochranMantelHaenszelResult } from './designs/cochranMantelHaenszel';
 import type { DesignOptions } from './designs/designOptions';
 import type { FollowUps } from './designs/followUps';
+import type { ExactStratifiedResult } from './designs/exactStratifiedTest';
 import type { MantelFleissCheck } from './designs/mantelFleissCriterion';
 import type { McNemarResult } from './designs/mcnemarTest';
 import type { ChosenPValue, PValueOptions } from './exact/choosePValue';
@@ -33,6 +34,10 @@ export interface StratifiedAnalysis {
   strata: { label: string; table: CountTable }[];
   cmh: CochranMantelHaenszelResult;
   mantelFleiss: MantelFleissCheck;
+  /** The exact conditional test, which leads when the Mantel–Fleiss criterion fails (or when asked). */
+  exact?: ExactStratifiedResult;
+  /** Why the exact p leads, or why it could not be computed; one sentence for the write-up. */
+  exactReason?: string;
 }
 
 /** Where the table came from and how it was chosen. */

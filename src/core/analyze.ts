@@ -230,6 +230,7 @@ export function analyzeCountTable(
     return ok(finish({ kind: 'paired', table, origin, result: result.value, paired: paired.value.paired, warnings: paired.value.warnings, options }));
   }
   const choice = choosePValue(result.value, table.observed, options, control);
+  if (choice.kind === 'failed') return fail(choice.issue);
   if (choice.kind === 'cancelled') {
     return fail({ code: 'cancelled', message: 'The exact or simulated test was cancelled; nothing was changed.' });
   }

@@ -50,6 +50,8 @@ export function toJson(analysis: Analysis): Record<string, unknown> {
         pooledOddsRatio: analysis.stratified.cmh.pooledOddsRatio ?? null,
         breslowDay: analysis.stratified.cmh.breslowDay ?? null,
         mantelFleiss: analysis.stratified.mantelFleiss,
+        exact: analysis.stratified.exact ?? null,
+        exactReason: analysis.stratified.exactReason ?? null,
         strataSkipped: analysis.stratified.cmh.strataSkipped,
       }
       : null,

@@ -6,6 +6,7 @@ export const COMMAND_ID = {
   copyResults: 'tallywise.copyResults',
   panelState: 'tallywise.test.panelState',
   planStudy: 'tallywise.planStudy',
+  checkTableAs: 'tallywise.checkTableAs',
 } as const;
 
 /** The results panel's view type (also its `onWebviewPanel:` activation event). */

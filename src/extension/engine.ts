@@ -13,3 +13,7 @@ export { parseProportionGroups } from '../core/plan/parseProportionGroups';
 export { checkDf, checkEffectSize, checkPower, checkProportions } from '../core/plan/validatePlanInputs';
 export { writePlan } from '../core/report/writePlan';
 export { planFromTable } from './planFromTable';
+export { checkAlpha } from '../core/plan/validatePlanInputs';
+export { buildPlanView } from './planPanelView';
+export { sensitivityFromTable } from './sensitivityFromTable';
+export { parseScores, tableShape } from './tableShape';

@@ -2,6 +2,7 @@
 import * as vscode from 'vscode';
 import type { Command } from './command';
 import { RESULTS_VIEW_TYPE } from './commandIds';
+import { CheckTableAsCommand } from './commands/checkTableAsCommand';
 import { CheckTableHereCommand } from './commands/checkTableHereCommand';
 import { CopyResultsCommand } from './commands/copyResultsCommand';
 import { InsertWriteUpCommand } from './commands/insertWriteUpCommand';
@@ -18,6 +19,7 @@ export function activate(context: vscode.ExtensionContext): void {
   context.subscriptions.push(tallywise);
   const commands: Command[] = [
     new CheckTableHereCommand(tallywise),
+    new CheckTableAsCommand(tallywise),
     new TestFitCommand(tallywise),
     new InsertWriteUpCommand(tallywise),
     new CopyResultsCommand(tallywise),

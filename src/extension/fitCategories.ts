@@ -1,8 +1,7 @@
 import type { AnalyzeRequest } from '../core/analyze';
-import { locateTable } from '../core/table/locateTable';
 import { describeLocation } from '../core/table/describeLocation';
-import { readCountTable } from '../core/table/readCountTable';
 import { fail, ok, type Result } from '../core/types';
+import { readPointedTable } from './readPointedTable';
 
 /**
  * The categories a goodness-of-fit test of the pointed-at table would have, so the expected-proportions
@@ -12,9 +11,7 @@ import { fail, ok, type Result } from '../core/types';
  * @returns the category labels, or the engine's issue (no table, not counts, not one row or column)
  */
 export function fitCategories(request: Pick<AnalyzeRequest, 'text' | 'format' | 'line' | 'selection'>): Result<string[]> {
-  const located = locateTable(request.text, { format: request.format, line: request.line, selection: request.selection });
-  if (!located.ok) return located;
-  const read = readCountTable(located.value.grid);
+  const read = readPointedTable(request);
   if (!read.ok) return read;
   const table = read.value;
   if (table.rowLabels.length === 1) return ok(table.columnLabels);

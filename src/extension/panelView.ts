@@ -1,9 +1,13 @@
 import type { Analysis, ReportOptions } from '../core/analysis';
 import { validitySentences } from '../core/report/cautions';
 import { formatExactP, formatFixed, formatPercent, formatSigned } from '../core/report/formatNumber';
-import { statisticsLines } from '../core/report/resultsReport';
+import { STRATA_SUMMED, statisticsLines } from '../core/report/resultsReport';
 import { goodnessOfFitHeadline } from '../core/report/writeGoodnessOfFit';
 import { independenceHeadline } from '../core/report/writeIndependence';
+import { pairedHeadline } from '../core/report/writePaired';
+import { mantelFleissSentence, stratifiedHeadline } from '../core/report/writeStratified';
+import { designSections } from '../core/report/designSections';
+import { withMarkup } from './withMarkup';
 import type { GoodnessOfFitResult, IndependenceResult } from '../core/stats/types';
 import type { Interval, MergeProposal } from '../core/types';
 import type { ChartData, DisplayTable, PanelView, ProportionBar } from '../protocol/messages';
@@ -25,6 +29,49 @@ export function buildPanelView(analysis: Analysis, key: string): PanelView {
   const report: ReportOptions = { ...analysis.options, markup: 'plain' };
   const { result, table } = analysis;
   const isIndependence = result.test === 'independence';
+  const base = {
+    key,
+    kind: analysis.kind,
+    details: statisticsLines(analysis),
+    tables: {
+      observed: observedTable(analysis),
+      expected: expectedTable(analysis),
+      contributions: contributionsTable(analysis),
+      residuals: isIndependence ? independenceResiduals(analysis, result) : fitResiduals(analysis, result as GoodnessOfFitResult),
+    },
+    designSections: designSections(analysis, report),
+    // Shown as plain text (no literal asterisks); Insert and Copy use the document's own markup.
+    writeUp: withMarkup(analysis, 'plain').writeUp,
+    warnings: analysis.warnings.map((warning) => warning.message),
+  };
+  const crossTabulation = analysis.origin.crossTabulation;
+  const where = crossTabulation
+    ? `cross-tabulation of ${crossTabulation.columns.join(' × ')}${crossTabulation.stratumColumn ? ` in strata by ${crossTabulation.stratumColumn}` : ''} (${crossTabulation.rowsRead.toLocaleString('en-US')} rows)`
+    : `table ${analysis.origin.index} of ${analysis.origin.count}, lines ${table.startLine}–${table.endLine}`;
+  if (analysis.kind === 'paired' && analysis.paired) {
+    return {
+      ...base,
+      title: `Paired 2×2 (McNemar), ${where}`,
+      summary: `Paired 2×2: ${pairedHeadline(analysis.paired, report)}`,
+      validity: 'Only the pairs whose answer changed carry information; the mid-p and exact conditional versions are valid for any number of them.',
+      validityOk: true,
+      details: [],
+      canRunExact: false,
+    };
+  }
+  if (analysis.kind === 'stratified' && analysis.stratified) {
+    const strata = analysis.stratified.strata.length;
+    return {
+      ...base,
+      title: `Stratified 2×2 (${strata} strata, Cochran–Mantel–Haenszel), ${crossTabulation ? where : `lines ${table.startLine}–${table.endLine}`}`,
+      summary: `Stratified 2×2: ${stratifiedHeadline(analysis.stratified, result.n, report)}`,
+      validity: [mantelFleissSentence(analysis.stratified), analysis.stratified.exactReason].filter(Boolean).join(' '),
+      validityOk: analysis.stratified.mantelFleiss.ok,
+      details: [STRATA_SUMMED, ...statisticsLines(analysis)],
+      tables: { ...base.tables, observed: { ...base.tables.observed, caption: `Strata summed (N = ${result.n}); each stratum is listed under Strata` } },
+      canRunExact: false,
+    };
+  }
   const testName = isIndependence
     ? `Test of independence (${result.rows}×${result.columns})`
     : `Goodness of fit (${result.categories} categories)`;
@@ -32,23 +79,14 @@ export function buildPanelView(analysis: Analysis, key: string): PanelView {
     ? independenceHeadline(result, report, analysis.exact)
     : goodnessOfFitHeadline(result, report, analysis.exact);
   return {
-    key,
-    title: `${testName}, table ${analysis.origin.index} of ${analysis.origin.count}, lines ${table.startLine}–${table.endLine}`,
+    ...base,
+    title: `${testName}, ${where}`,
     summary: `${testName}: ${summary}`,
     validity: validitySentences(result.validity, result.mergeProposal, result.n, report, analysis.exact, analysis.exactNote),
     validityOk: result.validity.ok,
-    details: statisticsLines(analysis),
-    tables: {
-      observed: observedTable(analysis),
-      expected: expectedTable(analysis),
-      contributions: contributionsTable(analysis),
-      residuals: isIndependence ? independenceResiduals(analysis, result) : fitResiduals(analysis, result),
-    },
     chart: isIndependence ? independenceChart(analysis, result) : fitChart(analysis, result),
     ...(result.mergeProposal ? { merge: mergeSection(analysis, result.mergeProposal) } : {}),
     canRunExact: !result.validity.ok && !analysis.exact && !analysis.exactNote,
-    writeUp: analysis.writeUp,
-    warnings: analysis.warnings.map((warning) => warning.message),
   };
 }
 

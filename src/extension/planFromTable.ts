@@ -1,7 +1,6 @@
 import type { AnalyzeRequest } from '../core/analyze';
-import { locateTable } from '../core/table/locateTable';
-import { readCountTable } from '../core/table/readCountTable';
 import { ok, type Result } from '../core/types';
+import { readPointedTable } from './readPointedTable';
 
 /** The pointed-at table read as the anticipated values of the next study. */
 export interface TableForPlan {
@@ -9,7 +8,12 @@ export interface TableForPlan {
   groups?: number[][];
   /** A single row or column: the anticipated category proportions (a goodness-of-fit plan needs null proportions too). */
   categories?: { labels: string[]; proportions: number[] };
-  /** 1-based last line of the table, where a paragraph can go below it. */
+  /** The counts as read, with their labels: a finished study's table, for the sensitivity of its size. */
+  observed: number[][];
+  rowLabels: string[];
+  columnLabels: string[];
+  /** 1-based first and last lines of the table; a paragraph can go below the last. */
+  startLine: number;
   endLine: number;
 }
 
@@ -22,16 +26,15 @@ export interface TableForPlan {
  * @returns the groups or categories, or the engine's issue (no table, not counts)
  */
 export function planFromTable(request: Pick<AnalyzeRequest, 'text' | 'format' | 'line' | 'selection'>): Result<TableForPlan> {
-  const located = locateTable(request.text, { format: request.format, line: request.line, selection: request.selection });
-  if (!located.ok) return located;
-  const read = readCountTable(located.value.grid);
+  const read = readPointedTable(request);
   if (!read.ok) return read;
-  const { observed, rowLabels, columnLabels, endLine } = read.value;
+  const { observed, rowLabels, columnLabels, startLine, endLine } = read.value;
+  const source = { observed, rowLabels, columnLabels, startLine, endLine };
   const share = (counts: number[]) => {
     const total = counts.reduce((a, b) => a + b, 0);
     return counts.map((count) => count / total);
   };
-  if (observed.length === 1) return ok({ categories: { labels: columnLabels, proportions: share(observed[0]) }, endLine });
-  if (observed[0].length === 1) return ok({ categories: { labels: rowLabels, proportions: share(observed.map((row) => row[0])) }, endLine });
-  return ok({ groups: observed.map(share), endLine });
+  if (observed.length === 1) return ok({ categories: { labels: columnLabels, proportions: share(observed[0]) }, ...source });
+  if (observed[0].length === 1) return ok({ categories: { labels: rowLabels, proportions: share(observed.map((row) => row[0])) }, ...source });
+  return ok({ groups: observed.map(share), ...source });
 }

@@ -25,6 +25,20 @@ export type InsertionPlan =
   }
   | { ok: false; message: string };
 
+/** Why an insertion is refused, in the words of what is being inserted. */
+export interface RefusalMessages {
+  /** The document is a CSV or TSV file, or the table came from raw observations. */
+  notInData: string;
+  /** The block of lines was edited (or removed) since it was read. */
+  changed(startLine: number, endLine: number): string;
+}
+
+const WRITE_UP_REFUSALS: RefusalMessages = {
+  notInData: 'A paragraph inside a CSV or TSV file would break it as data. Use "Copy write-up" and paste it into your notes instead.',
+  changed: (startLine, endLine) =>
+    `The table that was on lines ${startLine}–${endLine} has changed since it was analysed, so the write-up could land in the wrong place. Run the analysis again, then insert.`,
+};
+
 /**
  * Decides where a write-up goes: under the analysed table as it stands now, with one blank line before
  * and after the inserted text. If the document changed, the same table text is looked for (the copy
@@ -33,22 +47,16 @@ export type InsertionPlan =
  * @param documentText - the document's text now
  * @param snapshot - the table as analysed
  * @param content - the paragraph (and any tables or links) to insert, without surrounding blank lines
+ * @param refusals - the messages when insertion is refused (the write-up's by default)
  * @returns the position and text to insert, or why not
  */
-export function planInsertion(documentText: string, snapshot: InsertionSnapshot, content: string): InsertionPlan {
-  if (snapshot.format === 'delimited' || snapshot.crossTabulated) {
-    return { ok: false, message: 'A paragraph inside a CSV or TSV file would break it as data. Use "Copy write-up" and paste it into your notes instead.' };
-  }
+export function planInsertion(documentText: string, snapshot: InsertionSnapshot, content: string, refusals: RefusalMessages = WRITE_UP_REFUSALS): InsertionPlan {
+  if (snapshot.format === 'delimited' || snapshot.crossTabulated) return { ok: false, message: refusals.notInData };
   const eol = documentText.includes('\r\n') ? '\r\n' : '\n';
   const lines = documentText.split(/\r?\n/);
   const tableLines = snapshot.tableText.split(/\r?\n/);
   const startIndex = findTable(lines, tableLines, snapshot.startLine - 1);
-  if (startIndex < 0) {
-    return {
-      ok: false,
-      message: `The table that was on lines ${snapshot.startLine}–${snapshot.endLine} has changed since it was analysed, so the write-up could land in the wrong place. Run the analysis again, then insert.`,
-    };
-  }
+  if (startIndex < 0) return { ok: false, message: refusals.changed(snapshot.startLine, snapshot.endLine) };
   const endIndex = startIndex + tableLines.length - 1;
   const body = content.replace(/\r?\n/g, eol).replace(/\s+$/, '');
   const relocated = startIndex !== snapshot.startLine - 1;

@@ -13,11 +13,14 @@ export interface JobHooks {
   onProgress?: (fraction: number) => void;
   /** Aborting sets the shared cancel flag; the search stops at its next check (about every 50 ms). */
   signal?: AbortSignal;
+  /** Monte Carlo threads (the setting tallywise.monteCarloThreads); 0 or absent: automatic. Any count gives the same p. */
+  threads?: number;
 }
 
 /**
  * Runs `analyze` (or, for a table already read, `analyzeCountTable`) in a worker thread (the bundled
- * dist/analysisWorker.js) and resolves with its result. Never rejects for user input: a crashed worker
+ * dist/analysisWorker.js) and resolves with its result; Monte Carlo blocks spread over `hooks.threads`
+ * further threads (dist/monteCarloPoolWorker.js, beside the worker). Never rejects for user input: a crashed worker
  * becomes an Issue.
  */
 export function runAnalysisInWorker(workerFile: string, request: Omit<AnalyzeRequest, 'control'> | TableJob, hooks: JobHooks = {}): Promise<Result<Analysis>> {
@@ -48,8 +51,8 @@ export function runAnalysisInWorker(workerFile: string, request: Omit<AnalyzeReq
     worker.on('error', (error) => finish({ ok: false, issue: { code: 'unreadable', message: `The analysis stopped unexpectedly (${error.message}). Please report it with the table.` } }));
     worker.on('exit', () => finish({ ok: false, issue: { code: 'cancelled', message: 'The analysis stopped before it finished; nothing was changed.' } }));
     const job: WorkerJob = 'kind' in request
-      ? { type: 'analyzeTable', job: request, cancelFlag }
-      : { type: 'analyze', request, cancelFlag };
+      ? { type: 'analyzeTable', job: request, cancelFlag, threads: hooks.threads }
+      : { type: 'analyze', request, cancelFlag, threads: hooks.threads };
     worker.postMessage(job);
     if (hooks.signal?.aborted) onAbort();
   });

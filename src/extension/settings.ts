@@ -12,22 +12,28 @@ export const SETTING = {
   decimalPlaces: 'decimalPlaces',
   continuityCorrection: 'continuityCorrection',
   pValueMethod: 'pValueMethod',
+  pairwise: 'pairwiseComparisons',
   replicates: 'simulation.replicates',
   seed: 'simulation.seed',
   exactTimeLimit: 'exactSearch.timeLimitSeconds',
   writeUpStyle: 'writeUpStyle',
   codeLensEnabled: 'codeLens.enabled',
+  monteCarloThreads: 'monteCarloThreads',
 } as const;
 
 /** Same bounds as the engine's resolveOptions, so a value the settings accept never fails there. */
 const MAX_DECIMALS = 6;
 const MAX_REPLICATES = 10_000_000;
 const MAX_EXACT_SECONDS = 600;
+/** Same bound as src/node/monteCarloThreadCount's MAX_MONTE_CARLO_THREADS (not imported: this file stays free of Node modules). */
+const MAX_THREADS = 64;
 
 export interface TallywiseSettings {
   /** Only the options the user set to a usable value; the engine fills the rest with its defaults. */
   options: Partial<AnalyzeOptions>;
   codeLensEnabled: boolean;
+  /** Threads for Monte Carlo blocks; 0 means automatic (the cores, at most 4). */
+  monteCarloThreads: number;
   /** One sentence per unusable setting: which one, what it holds, what is used instead. */
   problems: string[];
 }
@@ -72,6 +78,11 @@ export function readSettings(get: SettingsGetter): TallywiseSettings {
     if (method === 'auto' || method === 'exact' || method === 'monte-carlo' || method === 'asymptotic') options.pValueMethod = method;
     else complain(SETTING.pValueMethod, method, '"auto", "exact", "monte-carlo" or "asymptotic"');
   }
+  const pairwise = get(SETTING.pairwise);
+  if (pairwise !== undefined) {
+    if (pairwise === 'holm' || pairwise === 'bonferroni' || pairwise === 'off') options.pairwise = pairwise;
+    else complain(SETTING.pairwise, pairwise, '"holm", "bonferroni" or "off"');
+  }
   const replicates = get(SETTING.replicates);
   if (replicates !== undefined) {
     if (isWholeNumber(replicates) && replicates >= 0 && replicates <= MAX_REPLICATES) options.replicates = replicates;
@@ -99,7 +110,13 @@ export function readSettings(get: SettingsGetter): TallywiseSettings {
     if (typeof lens === 'boolean') codeLensEnabled = lens;
     else complain(SETTING.codeLensEnabled, lens, 'true or false');
   }
-  return { options, codeLensEnabled, problems };
+  const threads = get(SETTING.monteCarloThreads);
+  let monteCarloThreads = 0;
+  if (threads !== undefined) {
+    if (isWholeNumber(threads) && threads >= 0 && threads <= MAX_THREADS) monteCarloThreads = threads;
+    else complain(SETTING.monteCarloThreads, threads, `a whole number from 0 (automatic) to ${MAX_THREADS}`);
+  }
+  return { options, codeLensEnabled, monteCarloThreads, problems };
 }
 
 /** Markdown write-ups in Markdown files, plain text everywhere else. */

@@ -1,5 +1,5 @@
 import * as vscode from 'vscode';
-import type { Analysis } from '../core/analysis';
+import type { Analysis, AnalyzeOptions } from '../core/analysis';
 import type { AnalyzeRequest } from '../core/analyze';
 import type { Result } from '../core/types';
 import { panelKey, tableLines, type AnalysisRecord } from './analysisRecord';
@@ -11,6 +11,13 @@ import { loadEngine } from './loadEngine';
 import { ResultsPanels } from './resultsPanel';
 import { runAnalysisInWorker } from './runAnalysisInWorker';
 import { markupFor, readSettings, type TallywiseSettings } from './settings';
+
+/** How the counts were collected, when a command asked: the design options and, for raw data, the stratum column. */
+export interface DesignChoice {
+  options: Partial<AnalyzeOptions>;
+  /** Asks for the stratum column after the two columns are chosen (raw data, stratified design). */
+  askStratum?: boolean;
+}
 
 /** What a command points at: a document, and the editor selection or a line (from a CodeLens). */
 export interface Target {
@@ -78,6 +85,13 @@ export class Tallywise extends Disposable {
     return { document: editor.document, selection: editor.selection };
   }
 
+  /** The target, or a hint of what to open first when there is none. */
+  async targetOrHint(args: unknown[], hint: string): Promise<Target | undefined> {
+    const target = await this.target(args);
+    if (!target) void vscode.window.showInformationMessage(hint);
+    return target;
+  }
+
   workerFile(): string {
     return this.context.asAbsolutePath('dist/analysisWorker.js');
   }
@@ -92,6 +106,7 @@ export class Tallywise extends Disposable {
         let reported = 0;
         return runAnalysisInWorker(this.workerFile(), job, {
           signal: controller.signal,
+          threads: this.settings().monteCarloThreads,
           onProgress: (fraction) => {
             const percent = Math.round(fraction * 100);
             if (percent > reported) progress.report({ increment: percent - reported, message: `${percent}%` });
@@ -107,9 +122,10 @@ export class Tallywise extends Disposable {
    * cancelled) ends in one message and changes nothing.
    *
    * @param fit - a goodness-of-fit pattern, when the person gave one
+   * @param design - paired, stratified or ordered options, when the person chose them
    * @returns the record shown, or undefined
    */
-  async analyzeTarget(target: Target, fit?: string): Promise<AnalysisRecord | undefined> {
+  async analyzeTarget(target: Target, fit?: string, design?: DesignChoice): Promise<AnalysisRecord | undefined> {
     const { document } = target;
     const format = documentFormat(document.languageId, document.fileName);
     const text = document.getText();
@@ -117,12 +133,17 @@ export class Tallywise extends Disposable {
     const request: Omit<AnalyzeRequest, 'control'> = {
       ...editorRequest(text, format, target.selection, target.line),
       fit,
-      options: { ...settings.options, markup: markupFor(format) },
+      options: { ...settings.options, ...design?.options, markup: markupFor(format) },
     };
     if (format === 'delimited' && !request.selection && fit === undefined) {
       const columns = await this.chooseColumns(text);
       if (columns === null) return undefined;
       if (columns) request.columns = columns;
+      if (columns && design?.askStratum) {
+        const stratum = await this.chooseStratum(text, columns);
+        if (stratum === undefined) return undefined;
+        request.stratum = stratum;
+      }
     }
     const result = await this.run(request, vscode.l10n.t('Tallywise: testing the table'));
     if (!result.ok) {
@@ -166,6 +187,20 @@ export class Tallywise extends Disposable {
     this.log.info(`${code}: ${message}`);
     if (code === 'cancelled') void vscode.window.showInformationMessage(`Tallywise: ${message}`);
     else void vscode.window.showWarningMessage(`Tallywise: ${message}`);
+  }
+
+  /** For raw observations in strata: which other column names each observation's stratum. */
+  private async chooseStratum(text: string, chosen: [string, string]): Promise<string | undefined> {
+    const columns = (loadEngine().rawDataColumns(text) ?? []).filter((column) => !chosen.includes(column));
+    if (columns.length === 0) {
+      void vscode.window.showWarningMessage(vscode.l10n.t('Tallywise: no other column is left to name the strata; a stratified analysis needs a column such as a site or a shift.'));
+      return undefined;
+    }
+    const picked = await vscode.window.showQuickPick(columns, {
+      title: vscode.l10n.t('Tallywise: strata'),
+      placeHolder: vscode.l10n.t('Which column names the stratum (site, shift, batch) of each observation?'),
+    });
+    return picked;
   }
 
   /**

@@ -6,6 +6,8 @@
  * The panel computes nothing and writes no prose: every string and number it shows arrives here,
  * already formatted by the host (src/extension/panelView.ts builds a PanelView from an Analysis).
  */
+import { isPlanPanelToHost, isPlanView, type PlanPanelToHost, type PlanView } from './planView';
+import { isDesignSections, type DesignSection, type ViewKind } from './designSections';
 
 /** A table as display text: header cells, then rows whose first cell is the row label. */
 export interface DisplayTable {
@@ -41,6 +43,8 @@ export interface ChartData {
 }
 
 export interface PanelView {
+  /** Absent in views saved before designs existed: read as independence or goodness of fit. */
+  kind?: ViewKind;
   /** Identifies the analysed table (document URI + table start line) so re-running updates the same panel. */
   key: string;
   title: string;
@@ -64,12 +68,15 @@ export interface PanelView {
   merge?: { description: string; table: DisplayTable; result: string };
   /** True when an exact or simulated p can be asked for (the rule fails and none leads yet). */
   canRunExact: boolean;
+  /** What the design adds: McNemar details, the strata, which groups differ, tests for order. */
+  designSections?: DesignSection[];
   writeUp: string;
   warnings: string[];
 }
 
 export type HostToPanel =
   | { type: 'show'; view: PanelView }
+  | { type: 'showPlan'; view: PlanView }
   | { type: 'busy'; message: string }
   | { type: 'notice'; message: string };
 
@@ -79,7 +86,8 @@ export type PanelToHost =
   | { type: 'copyWriteUp' }
   | { type: 'applyMerge' }
   | { type: 'runExact'; method: 'exact' | 'monte-carlo' }
-  | { type: 'saveChart'; chart: 'proportions' | 'mosaic'; svg: string };
+  | { type: 'saveChart'; chart: 'proportions' | 'mosaic'; svg: string }
+  | PlanPanelToHost;
 
 function isRecord(value: unknown): value is Record<string, unknown> {
   return typeof value === 'object' && value !== null;
@@ -100,7 +108,7 @@ export function isPanelToHost(value: unknown): value is PanelToHost {
     case 'saveChart':
       return (value.chart === 'proportions' || value.chart === 'mosaic') && typeof value.svg === 'string' && value.svg.length < 5_000_000;
     default:
-      return false;
+      return isPlanPanelToHost(value);
   }
 }
 
@@ -108,8 +116,10 @@ export function isPanelToHost(value: unknown): value is PanelToHost {
 export function isHostToPanel(value: unknown): value is HostToPanel {
   if (!isRecord(value)) return false;
   if (value.type === 'busy' || value.type === 'notice') return typeof value.message === 'string';
+  if (value.type === 'showPlan') return isPlanView(value.view);
   if (value.type !== 'show' || !isRecord(value.view)) return false;
   const view = value.view;
   return typeof view.key === 'string' && typeof view.title === 'string' && typeof view.summary === 'string' &&
-    typeof view.writeUp === 'string' && Array.isArray(view.details) && isRecord(view.tables);
+    typeof view.writeUp === 'string' && Array.isArray(view.details) && isRecord(view.tables) &&
+    (view.designSections === undefined || isDesignSections(view.designSections));
 }

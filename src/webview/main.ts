@@ -1,7 +1,9 @@
 // The results panel's front end: it lays out the finished view the host sends and posts the
 // user's choices back. Every label from the user's document goes in as text, never as HTML.
 import { isHostToPanel, type PanelToHost, type PanelView } from '../protocol/messages';
+import { isPlanView, type PlanView } from '../protocol/planView';
 import { renderPanel } from './render/panel';
+import { renderPlanView } from './render/planView';
 import { createStatusRegion, showStatus } from './render/status';
 
 declare function acquireVsCodeApi(): { postMessage(message: PanelToHost): void; getState(): unknown; setState(state: unknown): void };
@@ -17,8 +19,9 @@ function asView(candidate: unknown): PanelView | undefined {
   return isHostToPanel(message) && message.type === 'show' ? message.view : undefined;
 }
 
-function show(view: PanelView): void {
-  renderPanel(root, view, post);
+function show(view: PanelView | PlanView): void {
+  if (isPlanView(view)) renderPlanView(root, view, post);
+  else renderPanel(root, view, post);
   root.removeAttribute('aria-busy');
   showStatus(status, '', 'idle');
   vscode.setState(view);
@@ -29,6 +32,7 @@ window.addEventListener('message', (event: MessageEvent<unknown>) => {
   if (!isHostToPanel(message)) return;
   switch (message.type) {
     case 'show':
+    case 'showPlan':
       show(message.view);
       break;
     case 'busy':
@@ -42,8 +46,10 @@ window.addEventListener('message', (event: MessageEvent<unknown>) => {
   }
 });
 
-function initialView(): PanelView | undefined {
-  const saved = asView(vscode.getState());
+function initialView(): PanelView | PlanView | undefined {
+  const state = vscode.getState();
+  if (isPlanView(state)) return state;
+  const saved = asView(state);
   if (saved) return saved;
   const embedded = root.dataset.initialView;
   if (!embedded) return undefined;

@@ -40,6 +40,17 @@ describe('layers', () => {
     assert.deepEqual(offenders, []);
   });
 
+  it('keeps src/node (the Monte Carlo pool) free of the editor and the outer layers; Node modules are allowed', () => {
+    const offenders: string[] = [];
+    for (const file of sourceFiles(path.join(root, 'src', 'node'))) {
+      for (const specifier of importsOf(file)) {
+        const outer = /(^|\/)(extension|webview|cli)(\/|$)/.test(specifier) && specifier.startsWith('.');
+        if (specifier === 'vscode' || outer) offenders.push(`${path.relative(root, file)} imports ${specifier}`);
+      }
+    }
+    assert.deepEqual(offenders, []);
+  });
+
   it('keeps the panel away from the engine and Node: it only imports the protocol', () => {
     const offenders: string[] = [];
     for (const file of sourceFiles(path.join(root, 'src', 'webview'))) {

@@ -2,6 +2,7 @@ import assert from 'node:assert/strict';
 import * as fs from 'node:fs';
 import * as path from 'node:path';
 import type { Page } from 'playwright-core';
+import { DESIGN_SCENARIOS } from './designScenarios';
 import { waitUntil } from './host';
 import { STEP_MS, Workbench } from './workbench';
 
@@ -107,4 +108,5 @@ export const UI_SCENARIOS: UiScenario[] = [
       await screenshot('no-table');
     },
   },
+  ...DESIGN_SCENARIOS,
 ];

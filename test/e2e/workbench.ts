@@ -69,6 +69,25 @@ export class Workbench {
     await this.page.keyboard.press('Enter');
   }
 
+  /** Waits for a quick pick or input box whose title contains `title` (a command's own question, not the palette). */
+  async question(title: string): Promise<Locator> {
+    await visible(this.page.locator('.quick-input-widget .quick-input-title', { hasText: title }).first(), `the question "${title}"`);
+    return visible(this.page.locator('.quick-input-widget .quick-input-box input'), `the input of "${title}"`);
+  }
+
+  /** Answers a command's quick pick titled `title` by typing the item's label. */
+  async answer(title: string, label: string): Promise<void> {
+    await this.question(title);
+    await this.pick(label);
+  }
+
+  /** Answers a command's input box titled `title` with `value` ('' accepts the default). */
+  async type(title: string, value: string): Promise<void> {
+    const input = await this.question(title);
+    await input.fill(value);
+    await this.page.keyboard.press('Enter');
+  }
+
   /** The results panel's content frame (a webview is two nested iframes). */
   panel(): FrameLocator {
     return this.page.frameLocator('iframe.webview.ready').frameLocator('iframe#active-frame');

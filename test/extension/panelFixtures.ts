@@ -56,3 +56,25 @@ export function analyzed(text: string, request: Partial<AnalyzeRequest> = {}): A
   if (!result.ok) throw new Error(`fixture did not analyse: ${result.issue.message}`);
   return result.value;
 }
+
+/** Sailing school: the same 66 pupils' knot test before and after a lesson (paired 2×2). */
+export const SAILING_KNOTS = [
+  '| Before \\ After | Tied | Not tied |',
+  '|---|---|---|',
+  '| Tied | 40 | 3 |',
+  '| Not tied | 14 | 9 |',
+].join('\n');
+
+/** Laundry: torn sheets by machine in three shifts, one 2×2 table per shift (strata). */
+export const LAUNDRY_SHIFTS = [
+  '## Early', '', '| Machine | Torn | Fine |', '|---|---|---|', '| Old | 9 | 93 |', '| New | 4 | 97 |', '',
+  '## Late', '', '| Machine | Torn | Fine |', '|---|---|---|', '| Old | 12 | 70 |', '| New | 6 | 80 |', '',
+  '## Night', '', '| Machine | Torn | Fine |', '|---|---|---|', '| Old | 5 | 40 |', '| New | 3 | 45 |',
+].join('\n');
+
+/** The same analysis with a stratum named like markup (the reader strips tags from headings, so this tests the panel alone). */
+export function withHostileStratum(analysis: Analysis): Analysis {
+  if (!analysis.stratified) throw new Error('withHostileStratum needs a stratified analysis');
+  const strata = analysis.stratified.strata.map((stratum, index) => (index === 1 ? { ...stratum, label: HOSTILE_ROW } : stratum));
+  return { ...analysis, stratified: { ...analysis.stratified, strata } };
+}

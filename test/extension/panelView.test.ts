@@ -4,6 +4,7 @@ import { statisticsLines } from '../../src/core/report/resultsReport';
 import { goodnessOfFitHeadline } from '../../src/core/report/writeGoodnessOfFit';
 import { independenceHeadline } from '../../src/core/report/writeIndependence';
 import { buildPanelView } from '../../src/extension/panelView';
+import { withMarkup } from '../../src/extension/withMarkup';
 import { isHostToPanel } from '../../src/protocol/messages';
 import {
   analyzed, BAKERY_RETURNS, BUS_DEPOT_SPARSE, GREENHOUSE, HOSTILE_COLUMN, HOSTILE_ROW, SKI_SCHOOL, withHostileLabels,
@@ -20,7 +21,7 @@ describe('buildPanelView', () => {
     if (analysis.result.test !== 'independence') return;
     assert.ok(view.summary.endsWith(independenceHeadline(analysis.result, plain(analysis), analysis.exact)), view.summary);
     assert.deepEqual(view.details, statisticsLines(analysis));
-    assert.equal(view.writeUp, analysis.writeUp);
+    assert.equal(view.writeUp, withMarkup(analysis, 'plain').writeUp, 'the panel shows the write-up without Markdown emphasis');
     assert.equal(view.validityOk, true);
     assert.ok(isHostToPanel({ type: 'show', view }));
     assert.ok(isHostToPanel(JSON.parse(JSON.stringify({ type: 'show', view }))), 'the view survives a JSON round trip');

@@ -1,5 +1,7 @@
 import assert from 'node:assert/strict';
+import { typedAllocation, typedNumber } from '../../src/extension/planInputs';
 import { planInsertion, type InsertionSnapshot } from '../../src/extension/planInsertion';
+import { planAnchor, planParagraphInsertion } from '../../src/extension/planParagraphInsertion';
 
 // Invented greenhouse notes: seed trays by potting mix.
 const TABLE = [
@@ -87,5 +89,59 @@ describe('planInsertion', () => {
     assert.ok(plan.ok);
     assert.equal(plan.text, '\nLateness did not differ by route (plain).\n');
     assert.equal(plan.line, 5);
+  });
+});
+
+describe('planParagraphInsertion', () => {
+  const anchorOnTable = planAnchor(NOTES, 3, 6, 'markdown', 'table');
+
+  it('goes below the table with one blank line on each side, following the table when lines were added above', () => {
+    assert.equal(anchorOnTable.text, TABLE.join('\n'));
+    assert.equal(apply(NOTES, planParagraphInsertion(NOTES, anchorOnTable, PARAGRAPH)), ['# Greenhouse log', '', ...TABLE, '', PARAGRAPH, '', 'Trays were checked on day 9.', ''].join('\n'));
+    const moved = `New line.\n${NOTES}`;
+    const place = planParagraphInsertion(moved, anchorOnTable, PARAGRAPH);
+    assert.ok(place.ok && place.relocated && place.tableEndLine === 7);
+  });
+
+  it('goes below the cursor line, keeping Windows line endings', () => {
+    const text = 'a\r\nb\r\nc';
+    const place = planParagraphInsertion(text, planAnchor(text, 1, 1, 'text', 'line'), 'P');
+    assert.ok(place.ok);
+    assert.deepEqual([place.line, place.character, place.text], [1, 0, '\r\nP\r\n\r\n']);
+    const end = planParagraphInsertion('a', planAnchor('a', 1, 1, 'markdown', 'line'), 'P');
+    assert.ok(end.ok);
+    assert.deepEqual([end.line, end.character, end.text], [0, 1, '\n\nP\n']);
+  });
+
+  it('refuses when the anchor\'s text is gone, and in a CSV file, naming the plan\'s own buttons', () => {
+    const edited = NOTES.replace('| Coir | 35 | 15 |', '| Coir | 36 | 15 |');
+    const changed = planParagraphInsertion(edited, anchorOnTable, PARAGRAPH);
+    assert.equal(changed.ok, false);
+    assert.match(changed.ok ? '' : changed.message, /^The table that was on lines 3–6 has changed since the plan was made.*Plan again/);
+    const line = planParagraphInsertion('x\ny', planAnchor('a\nb', 2, 2, 'markdown', 'line'), PARAGRAPH);
+    assert.match(line.ok ? '' : line.message, /^Line 2, where the cursor was, has changed/);
+    const csv = planParagraphInsertion('a,b\n1,2', planAnchor('a,b\n1,2', 1, 2, 'delimited', 'table'), PARAGRAPH);
+    assert.match(csv.ok ? '' : csv.message, /CSV or TSV.*"Copy the paragraph"/);
+  });
+});
+
+describe('planInputs', () => {
+  it('reads decimals and, where allowed, percentages; anything else gets a message naming the entry', () => {
+    assert.deepEqual(typedNumber(' 0.05 ', 'The significance level'), { ok: true, value: 0.05 });
+    assert.deepEqual(typedNumber('80%', 'The target power', true), { ok: true, value: 0.8 });
+    const percentNotAllowed = typedNumber('5%', 'The effect size w');
+    assert.equal(percentNotAllowed.ok, false);
+    assert.match(percentNotAllowed.ok ? '' : percentNotAllowed.message, /^The effect size w: "5%" is not a number/);
+    assert.equal(typedNumber('0x10', 'w').ok, false);
+    assert.equal(typedNumber('1e-2', 'w').ok, true);
+  });
+
+  it('reads a ratio with one positive number per group', () => {
+    assert.deepEqual(typedAllocation('2:1', ['A', 'B']), { ok: true, value: [2, 1] });
+    assert.deepEqual(typedAllocation('1, 1.5, 2', ['A', 'B', 'C']), { ok: true, value: [1, 1.5, 2] });
+    const zero = typedAllocation('0:1', ['Peat', 'Coir']);
+    assert.match(zero.ok ? '' : zero.message, /positive number: Peat has 0\. Use 1:1 for equal groups/);
+    const count = typedAllocation('2', ['Peat', 'Coir', 'Bark']);
+    assert.match(count.ok ? '' : count.message, /^Give 3 numbers, one per group \(Peat : Coir : Bark\), separated by ":", e\.g\. 2:1:1; one was given\./);
   });
 });

@@ -25,6 +25,21 @@ describe('runAnalysisInWorker', () => {
     assert.equal(inWorker.value.writeUp, here.value.writeUp);
   });
 
+  it('gives the engine\'s own Monte Carlo p with 1, 2 and 3 pool threads (dist/monteCarloPoolWorker.js)', async () => {
+    const request: AnalyzeRequest = { text: sparseTable(6, 7), format: 'markdown', options: { pValueMethod: 'monte-carlo', replicates: 20_999 } };
+    const here = analyze(request);
+    assert.ok(here.ok);
+    if (!here.ok) return;
+    assert.equal(here.value.exact?.method, 'monte-carlo-patefield');
+    for (const threads of [1, 2, 3]) {
+      const inWorker = await runAnalysisInWorker(workerFile, request, { threads });
+      assert.ok(inWorker.ok, `${threads} threads`);
+      if (!inWorker.ok) return;
+      assert.equal(inWorker.value.exact?.p, here.value.exact?.p, `${threads} threads`);
+      assert.equal(inWorker.value.writeUp, here.value.writeUp, `${threads} threads`);
+    }
+  });
+
   it('reports progress and stops promptly when cancelled', async () => {
     const controller = new AbortController();
     const fractions: number[] = [];

@@ -7,9 +7,12 @@ import { buildSync } from 'esbuild';
 import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
 import { panelHtml } from '../../src/extension/panelHtml';
 import { buildPanelView } from '../../src/extension/panelView';
+import { planStudy, type PlanRequest } from '../../src/core/plan/planStudy';
+import { buildPlanView, type PlanViewSource } from '../../src/extension/planPanelView';
 import { isPanelToHost, type PanelToHost, type PanelView } from '../../src/protocol/messages';
+import type { PlanView } from '../../src/protocol/planView';
 import {
-  analyzed, BAKERY_RETURNS, BUS_DEPOT_SPARSE, GREENHOUSE, HOSTILE_COLUMN, HOSTILE_ROW, SKI_SCHOOL, withHostileLabels,
+  analyzed, BAKERY_RETURNS, BUS_DEPOT_SPARSE, GREENHOUSE, HOSTILE_COLUMN, HOSTILE_ROW, SKI_SCHOOL, withHostileLabels, LAUNDRY_SHIFTS, SAILING_KNOTS, withHostileStratum,
 } from '../extension/panelFixtures';
 
 // The real panel bundle in a real headless Chromium (Debian's /usr/bin/chromium; never downloaded).
@@ -85,14 +88,23 @@ interface Fixture {
   view: PanelView;
 }
 
-function fixtures(): Record<'table4x3' | 'table2x2' | 'sparse' | 'fit' | 'hostile', Fixture> {
+function fixtures(): Record<'table4x3' | 'table2x2' | 'sparse' | 'fit' | 'hostile' | 'paired' | 'strata', Fixture> {
   return {
     table4x3: { name: '4x3', view: buildPanelView(analyzed(GREENHOUSE), 'greenhouse') },
     table2x2: { name: '2x2', view: buildPanelView(analyzed(SKI_SCHOOL), 'ski') },
     sparse: { name: 'sparse-merge', view: buildPanelView(analyzed(BUS_DEPOT_SPARSE, { options: { pValueMethod: 'asymptotic' } }), 'depot') },
     fit: { name: 'goodness-of-fit', view: buildPanelView(analyzed(BAKERY_RETURNS), 'bakery') },
     hostile: { name: 'hostile', view: buildPanelView(withHostileLabels(analyzed(SKI_SCHOOL)), 'hostile') },
+    paired: { name: 'paired', view: buildPanelView(analyzed(SAILING_KNOTS, { options: { design: 'paired' } }), 'knots') },
+    strata: { name: 'strata', view: buildPanelView(withHostileStratum(analyzed(LAUNDRY_SHIFTS, { line: 3, options: { design: 'stratified' } })), 'laundry') },
   };
+}
+
+/** A plan view as the plan command builds it (the engine's numbers, the host's strings). */
+function planView(request: PlanRequest, source: PlanViewSource = {}): PlanView {
+  const result = planStudy(request);
+  assert.ok(result.ok, result.ok ? '' : result.issue.message);
+  return buildPlanView(result.value, source);
 }
 
 describe('panel (browser)', function () {
@@ -162,6 +174,20 @@ describe('panel (browser)', function () {
     await page.waitForSelector('h1', { timeout: WAIT_MS }).catch(() => assert.fail('the panel never rendered its title'));
   }
 
+  /** Opens the page and sends a plan view as the plan command does, after the page's ready. */
+  async function openPlan(view: PlanView, name: string): Promise<void> {
+    const html = panelHtml({ cspSource: 'file:', nonce: 'n0nce4test', scriptUri: 'webview.js', styleUri: 'panel.css' })
+      .replace('</head>', '<link rel="stylesheet" href="theme.css">\n</head>')
+      .replace('<body>', '<body class="vscode-dark">');
+    const file = path.join(folder, `plan-${name}.html`);
+    fs.writeFileSync(file, html);
+    await page.goto(pathToFileURL(file).href);
+    await page.waitForFunction(() => window.__posted.some((m) => m.type === 'ready'), undefined, { timeout: WAIT_MS })
+      .catch(() => assert.fail('the panel never posted ready'));
+    await page.evaluate((v) => window.postMessage({ type: 'showPlan', view: v }, '*'), view);
+    await page.waitForSelector('h1', { timeout: WAIT_MS }).catch(() => assert.fail('the plan view never rendered its title'));
+  }
+
   async function posted(): Promise<PanelToHost[]> {
     return page.evaluate(() => window.__posted);
   }
@@ -177,11 +203,33 @@ describe('panel (browser)', function () {
     await page.screenshot({ path: path.join(artifacts, `panel-${name}.png`), fullPage: true });
   }
 
+  it('shows a paired view with its McNemar section and without the independence tables', async () => {
+    const { view } = views.paired;
+    await open(view);
+    const section = page.locator('section[data-design="paired"]');
+    assert.deepEqual(await section.locator('li').allTextContents(), view.designSections![0].lines);
+    assert.equal(await page.locator('table.expected').count(), 0);
+    assert.equal(await page.locator('table.observed').count(), 1);
+    assert.equal(await page.locator('[data-action="run-exact"]').count(), 0);
+    assert.equal(await page.locator('[data-action="insert-with-expected"]').count(), 0);
+    await screenshot('paired');
+  });
+
+  it('lists the strata in a table and keeps a hostile stratum name as text', async () => {
+    const { view } = views.strata;
+    await open(view);
+    const rows = page.locator('section[data-design="strata"] table tbody tr');
+    assert.equal(await rows.count(), 3);
+    assert.equal(await rows.nth(1).locator('th').textContent(), HOSTILE_ROW);
+    assert.equal(await page.locator('section[data-design="strata"] img').count(), 0);
+    await screenshot('strata');
+  });
+
   it('renders the 4×3 tables with captions, column and row header cells and the host\'s values', async () => {
     const { view } = views.table4x3;
     await open(view);
     assert.equal(await page.locator('h1').textContent(), view.title);
-    assert.equal(await page.locator('table caption').count(), 4);
+    assert.equal(await page.locator('section[aria-labelledby="tables-heading"] table caption').count(), 4);
     const observedHeaders = await page.locator('table.observed th[scope="col"]').allTextContents();
     assert.deepEqual(observedHeaders, view.tables.observed.header);
     const rowHeaders = await page.locator('table.expected th[scope="row"]').allTextContents();
@@ -370,5 +418,76 @@ describe('panel (browser)', function () {
     await page.keyboard.press('Enter');
     const last = (await posted()).pop();
     assert.ok(last && last.type !== 'ready', 'Enter on the focused button posts its message');
+  });
+  it('draws the plan\'s power curve: one segment per point, rising, the target line and the planned marker, with N shown', async () => {
+    const view = planView({ design: 'two-proportions', p1: 0.04, p2: 0.08, allocationRatio: 2 }, { groupLabels: ['Online', 'Front desk'] });
+    await openPlan(view, 'two-proportions');
+    assert.equal(await page.locator('h1').textContent(), view.title);
+    assert.equal(await page.locator('.plan-headline').textContent(), view.headline);
+    assert.deepEqual(await page.locator('dl.plan-facts dt').allTextContents(), view.facts.map((fact) => fact.label));
+    assert.deepEqual(await page.locator('dl.plan-facts dd').allTextContents(), view.facts.map((fact) => fact.value));
+    const chart = page.locator('[data-chart="power-curve"] svg');
+    assert.equal(await chart.getAttribute('role'), 'img');
+    assert.equal(await chart.getAttribute('aria-labelledby'), 'power-curve-title power-curve-desc');
+    assert.equal(await chart.locator('title#power-curve-title').textContent(), view.curve.title);
+    assert.equal(await chart.locator('desc#power-curve-desc').textContent(), view.curve.description);
+    const d = (await chart.locator('path.power-curve').getAttribute('d')) ?? '';
+    const coordinates = [...d.matchAll(/[ML]([\d.]+) ([\d.]+)/g)].map((match) => [Number(match[1]), Number(match[2])]);
+    assert.equal(coordinates.length, view.curve.points.length, 'one vertex per point');
+    for (let i = 1; i < coordinates.length; i++) {
+      assert.ok(coordinates[i][0] > coordinates[i - 1][0], 'N increases to the right');
+      assert.ok(coordinates[i][1] <= coordinates[i - 1][1], 'power rises (SVG y falls)');
+    }
+    const targetY = Number(await chart.locator('line.target-line').getAttribute('y1'));
+    const marker = chart.locator('circle.planned-marker');
+    assert.equal(await marker.locator('title').textContent(), view.curve.planned.label);
+    assert.ok(Number(await marker.getAttribute('cy')) <= targetY + 0.1, 'the planned N reaches the target power (to the 0.1 px the marker is drawn at)');
+    const markerX = Number(await marker.getAttribute('cx'));
+    assert.ok(markerX > coordinates[0][0] && markerX < coordinates[coordinates.length - 1][0]);
+    assert.deepEqual(await chart.locator('text.x-tick').allTextContents(), view.curve.xTicks.map((tick) => tick.label));
+    assert.ok((await chart.textContent())?.includes(view.curve.target.label));
+    const details = page.locator('details.curve-table');
+    assert.equal(await details.getAttribute('open'), null, 'the data table starts folded');
+    await details.locator('summary').click();
+    assert.equal(await page.locator('table.power-curve-table tbody tr').count(), view.curve.points.length);
+    assert.equal(await page.locator('table.power-curve-table caption').textContent(), view.curve.table.caption);
+    assert.equal(await page.locator('.plan-paragraph').textContent(), view.paragraph);
+    await screenshot('plan-two-proportions-dark');
+  });
+
+  it('posts insertPlan and copyPlan from the plan buttons, and offers only Copy with the reason when there is no document', async () => {
+    await openPlan(planView({ design: 'effect-size', w: 0.3, df: 2 }, { insertLabel: 'Insert below line 4' }), 'buttons');
+    assert.equal(await page.locator('button[data-action="insert-plan"]').textContent(), 'Insert below line 4');
+    await page.click('button[data-action="insert-plan"]');
+    assert.deepEqual(await waitForPosted('insertPlan'), { type: 'insertPlan' });
+    await page.click('button[data-action="copy-plan"]');
+    assert.deepEqual(await waitForPosted('copyPlan'), { type: 'copyPlan' });
+    await openPlan(planView({ design: 'effect-size', w: 0.3, df: 2 }, { insertUnavailable: 'No notes were open.' }), 'copy-only');
+    assert.equal(await page.locator('button[data-action="insert-plan"]').count(), 0);
+    assert.equal(await page.locator('button[data-action="copy-plan"]').count(), 1);
+    assert.ok((await page.locator('#plan-paragraph-heading + p + .button-row + p').textContent())?.includes('No notes were open.'));
+  });
+
+  it('keeps hostile group labels in a plan view as literal text', async () => {
+    const view = planView({ design: 'independence', groups: [[0.7, 0.3], [0.5, 0.5]] }, { groupLabels: [HOSTILE_ROW, HOSTILE_COLUMN], origin: `the table of ${HOSTILE_COLUMN}` });
+    await openPlan(view, 'hostile');
+    const text = (await page.locator('#root').textContent()) ?? '';
+    assert.ok(text.includes(HOSTILE_ROW) && text.includes(HOSTILE_COLUMN), 'the labels show as text');
+    assert.equal(await page.locator('img').count(), 0, 'no <img> element was created');
+    assert.equal(await page.locator('script').count(), 1, 'no script element besides the bundle');
+    assert.ok((await page.locator('.plan-headline').textContent())?.includes(HOSTILE_ROW));
+  });
+
+  it('restores a plan view from getState after a reload, and ignores a malformed plan', async () => {
+    const view = planView({ design: 'effect-size', w: 0.5, df: 1 });
+    await openPlan(view, 'restore');
+    const saved = await page.evaluate(() => window.__state);
+    assert.deepEqual(saved, view);
+    await page.evaluate(() => window.postMessage({ type: 'showPlan', view: { kind: 'plan', title: 'broken' } }, '*'));
+    await page.addInitScript((state) => (window.__restoredState = state), saved);
+    await page.reload();
+    await page.waitForSelector('.plan-headline', { timeout: WAIT_MS }).catch(() => assert.fail('the restored plan never rendered'));
+    assert.equal(await page.locator('.plan-headline').textContent(), view.headline);
+    assert.equal(await page.locator('[data-chart="power-curve"] circle.planned-marker').count(), 1);
   });
 });

@@ -3,6 +3,7 @@ import { describeLocation } from '../table/describeLocation';
 import type { LabelledStratum } from '../table/strataTables';
 import { fail, ok, type CountTable, type Issue, type Result } from '../types';
 import { cochranMantelHaenszel, type StratumTable } from './cochranMantelHaenszel';
+import { exactStratifiedTest, MAX_EXACT_SUPPORT } from './exactStratifiedTest';
 import { mantelFleissCriterion } from './mantelFleissCriterion';
 import { mcnemarTest } from './mcnemarTest';
 
@@ -72,10 +73,21 @@ export function analyzeStrata(strata: readonly LabelledStratum[], options: Analy
   const mantelFleiss = mantelFleissCriterion(tables);
   const warnings: Issue[] = [];
   const where = { line: strata[0].table.startLine, column: 1 };
+  const wantExact = options.pValueMethod === 'exact' || options.pValueMethod === 'monte-carlo' || (options.pValueMethod === 'auto' && !mantelFleiss.ok);
+  const exact = wantExact ? exactStratifiedTest(tables) : undefined;
+  let exactReason: string | undefined;
+  if (wantExact) {
+    const why = options.pValueMethod === 'auto'
+      ? `Because the summed expected count lies only ${mantelFleiss.distance.toFixed(1)} from a bound the margins allow (the Mantel–Fleiss criterion asks for 5)`
+      : 'As requested';
+    exactReason = exact
+      ? `${why}, the p-value is from the exact conditional test (the distribution of the summed top-left counts given every stratum's margins).`
+      : `${why}, an exact conditional test was wanted, but its support (more than ${MAX_EXACT_SUPPORT.toLocaleString('en-US')} values) is too large; the CMH chi-square p is reported, so read it with care.`;
+  }
   if (!mantelFleiss.ok) {
     warnings.push({
       code: 'validity',
-      message: `${describeLocation(where)}: the Mantel–Fleiss criterion is not met (the summed expected count is ${mantelFleiss.distance.toFixed(1)} from a bound; 5 is needed), so the CMH p-value may be inaccurate. Collect more observations per stratum or combine similar strata.`,
+      message: `${describeLocation(where)}: the Mantel–Fleiss criterion is not met (the summed expected count is ${mantelFleiss.distance.toFixed(1)} from a bound; 5 is needed), so the CMH chi-square p-value may be inaccurate. ${exact ? 'The exact conditional p leads instead.' : 'Collect more observations per stratum or combine similar strata.'}`,
       location: where,
     });
   }
@@ -86,5 +98,6 @@ export function analyzeStrata(strata: readonly LabelledStratum[], options: Analy
       location: where,
     });
   }
-  return ok({ stratified: { strata: strata.map(({ label, table }) => ({ label, table })), cmh, mantelFleiss }, warnings });
+  const stratified = { strata: strata.map(({ label, table }) => ({ label, table })), cmh, mantelFleiss, ...(exact ? { exact } : {}), ...(exactReason ? { exactReason } : {}) };
+  return ok({ stratified, warnings });
 }

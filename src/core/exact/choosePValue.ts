@@ -5,7 +5,10 @@ import { monteCarloDefaultReplicates } from './monteCarloDefaultReplicates';
 import { monteCarloGoodnessOfFit } from './monteCarloGoodnessOfFit';
 import { monteCarloIndependence } from './monteCarloIndependence';
 import { freemanHaltonExact } from './network/freemanHaltonExact';
+import type { MonteCarloBlockHook } from './monteCarloJobSpec';
+import type { MonteCarloComputed } from './monteCarloOptions';
 import { DEFAULT_BUDGET, type Budget, type Computed, type ExactPValue } from './types';
+import type { Issue } from '../types';
 
 /** Which p-value leads the result. 'auto' uses the exact test when Cochran's rule fails. */
 export type PValueMethod = 'auto' | 'exact' | 'monte-carlo' | 'asymptotic';
@@ -43,10 +46,16 @@ export interface ChosenPValue extends ExactPValue {
 export type PValueChoice =
   | { kind: 'asymptotic'; reason?: string }
   | { kind: 'computed'; value: ChosenPValue }
-  | { kind: 'cancelled' };
+  | { kind: 'cancelled' }
+  /** The block hook (a worker pool) failed; the issue says what to do. */
+  | { kind: 'failed'; issue: Issue };
 
-/** Runtime hooks for long searches: cancellation and progress (from a worker, the CLI's terminal). */
-export type SearchControl = Pick<Budget, 'isCancelled' | 'onProgress'>;
+/**
+ * Runtime hooks for long searches: cancellation and progress (from a worker, the CLI's terminal),
+ * and optionally `runBlocks`, which simulates Monte Carlo blocks elsewhere (a Node worker pool,
+ * src/node/monteCarloPool.ts); without it the blocks run in this thread. The p is the same either way.
+ */
+export type SearchControl = Pick<Budget, 'isCancelled' | 'onProgress'> & { runBlocks?: MonteCarloBlockHook };
 
 const METHOD_NAMES: Record<ExactPValue['method'], string> = {
   'fisher-2x2': "Fisher's exact test",
@@ -85,14 +94,17 @@ export function choosePValue(
     return { kind: 'asymptotic', reason: 'No exact test is offered for a fitted distribution, because its parameter was estimated from the same counts; merging the sparse tail categories is the remedy.' };
   }
   const why = method === 'auto' ? `Because ${sparseReason(result)}` : 'As requested';
-  const budget: Partial<Budget> = { ...control, timeMs: options.exactTimeMs };
+  const { runBlocks, ...hooks } = control;
+  const budget: Partial<Budget> = { ...hooks, timeMs: options.exactTimeMs };
   const replicates = options.replicates > 0 ? options.replicates : monteCarloDefaultReplicates();
   // A simulation of a bounded number of replicates always ends, so only cancellation stops it.
-  const simulationBudget: Partial<Budget> = { ...control, timeMs: Number.POSITIVE_INFINITY };
+  const simulationBudget: Partial<Budget> = { ...hooks, timeMs: Number.POSITIVE_INFINITY };
   const simulate = (stoppedBy?: 'time' | 'memory'): PValueChoice => {
-    const simulated: Computed<ExactPValue> = result.test === 'independence'
-      ? monteCarloIndependence(observed, { replicates, seed: options.seed, budget: simulationBudget })
-      : monteCarloGoodnessOfFit(observed.flat(), result.expectedProportions, { replicates, seed: options.seed, budget: simulationBudget });
+    const simulation = { replicates, seed: options.seed, budget: simulationBudget, runBlocks };
+    const simulated: MonteCarloComputed<ExactPValue> = result.test === 'independence'
+      ? monteCarloIndependence(observed, simulation)
+      : monteCarloGoodnessOfFit(observed.flat(), result.expectedProportions, simulation);
+    if (!simulated.ok && simulated.reason === 'failed') return { kind: 'failed', issue: { code: 'unreadable', message: simulated.message } };
     if (!simulated.ok) return { kind: 'cancelled' };
     const handover = stoppedBy ? `, and because the exact search would pass its ${stoppedBy === 'time' ? 'time' : 'memory'} limit` : '';
     return {

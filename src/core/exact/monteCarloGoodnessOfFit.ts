@@ -1,7 +1,7 @@
 import { monteCarloGoodnessOfFitBlocks } from './monteCarloGoodnessOfFitBlocks';
-import type { MonteCarloOptions } from './monteCarloOptions';
+import type { MonteCarloComputed, MonteCarloOptions } from './monteCarloOptions';
 import { monteCarloPValue } from './monteCarloPValue';
-import type { Computed, ExactPValue } from './types';
+import type { ExactPValue } from './types';
 
 /**
  * Monte Carlo p-value for goodness of fit: the share of multinomial outcomes, drawn under the
@@ -16,10 +16,10 @@ import type { Computed, ExactPValue } from './types';
  *
  * @param observed - counts per category (nonnegative integers)
  * @param expectedProportions - hypothesised proportions (nonnegative, any scale, positive sum)
- * @param options - replicates R, seed, budget, statistic ('probability' default, or 'pearson'), intervalLevel
- * @returns method 'monte-carlo-multinomial' with p, replicates, seed and interval; or why the budget stopped it
+ * @param options - replicates R, seed, budget, statistic ('probability' default, or 'pearson'), intervalLevel, runBlocks (a worker pool)
+ * @returns method 'monte-carlo-multinomial' with p, replicates, seed and interval; or why the budget (or a failed worker pool) stopped it
  */
-export function monteCarloGoodnessOfFit(observed: readonly number[], expectedProportions: readonly number[], options: MonteCarloOptions): Computed<ExactPValue> {
+export function monteCarloGoodnessOfFit(observed: readonly number[], expectedProportions: readonly number[], options: MonteCarloOptions): MonteCarloComputed<ExactPValue> {
   const count = monteCarloGoodnessOfFitBlocks(observed, expectedProportions, options);
   if (!count.ok) return count;
   return { ok: true, value: monteCarloPValue(count.value, options.seed, 'monte-carlo-multinomial', options.intervalLevel) };

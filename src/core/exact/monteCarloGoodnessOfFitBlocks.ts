@@ -1,8 +1,9 @@
+import { monteCarloBlockRunner } from './monteCarloBlockRunner';
 import { monteCarloCountBlocks } from './monteCarloCountBlocks';
+import { monteCarloGoodnessOfFitSpec } from './monteCarloGoodnessOfFitSpec';
 import { monteCarloLogFactorials } from './monteCarloLogFactorials';
-import type { MonteCarloBlockRange, MonteCarloCount, MonteCarloOptions } from './monteCarloOptions';
-import { randomMultinomialSampler } from './randomMultinomialSampler';
-import { DEFAULT_BUDGET, RELATIVE_TIE_TOLERANCE, type Computed } from './types';
+import type { MonteCarloBlockRange, MonteCarloComputed, MonteCarloCount, MonteCarloOptions } from './monteCarloOptions';
+import { DEFAULT_BUDGET } from './types';
 
 /** Bytes per stored log-factorial and per category of work arrays. */
 const BYTES_PER_LOG_FACTORIAL = 8;
@@ -26,16 +27,16 @@ const BYTES_PER_CATEGORY = 4 * 8 + 4;
  *
  * @param observed - counts per category (nonnegative integers)
  * @param expectedProportions - hypothesised proportions, same length, nonnegative, positive sum (any scale)
- * @param options - replicates R, seed, budget, statistic
+ * @param options - replicates R, seed, budget, statistic, and optionally a block hook (a worker pool)
  * @param range - which blocks of REPLICATES_PER_STREAM replicates to simulate (default: all)
- * @returns b and the replicates simulated, or why the budget stopped it
+ * @returns b and the replicates simulated, or why the budget (or the block hook) stopped it
  */
 export function monteCarloGoodnessOfFitBlocks(
   observed: readonly number[],
   expectedProportions: readonly number[],
   options: MonteCarloOptions,
   range?: MonteCarloBlockRange,
-): Computed<MonteCarloCount> {
+): MonteCarloComputed<MonteCarloCount> {
   const startedAt = performance.now();
   const categories = observed.length;
   const weightSum = expectedProportions.reduce((sum, value) => sum + value, 0);
@@ -58,51 +59,6 @@ export function monteCarloGoodnessOfFitBlocks(
   }
   const proportions = expectedProportions.map((value) => value / weightSum);
   const logFactorials = monteCarloLogFactorials(total);
-  const sampler = randomMultinomialSampler(proportions, total, logFactorials);
-  const counts = new Int32Array(categories);
-  const isExtreme = (options.statistic ?? 'probability') === 'pearson' ? pearsonCriterion() : probabilityCriterion();
-  return monteCarloCountBlocks(options.replicates, options.seed, range, options.budget, startedAt, (random) => {
-    sampler.sample(random, counts);
-    return isExtreme();
-  });
-
-  function probabilityCriterion(): () => boolean {
-    const logProportion = Float64Array.from(proportions, (value) => (value > 0 ? Math.log(value) : 0));
-    const score = (count: (j: number) => number): number => {
-      let sum = 0;
-      for (let j = 0; j < categories; j++) {
-        const x = count(j);
-        if (x > 0) sum += proportions[j] > 0 ? logFactorials[x] - x * logProportion[j] : Infinity;
-      }
-      return sum;
-    };
-    const threshold = score((j) => observed[j]) - Math.log1p(RELATIVE_TIE_TOLERANCE);
-    return () => {
-      let sum = 0;
-      for (let j = 0; j < categories; j++) {
-        const x = counts[j];
-        if (x > 0) sum += logFactorials[x] - x * logProportion[j];
-      }
-      return sum >= threshold;
-    };
-  }
-
-  function pearsonCriterion(): () => boolean {
-    const expected = Float64Array.from(proportions, (value) => value * total);
-    const inverseExpected = Float64Array.from(expected, (value) => (value > 0 ? 1 / value : 0));
-    let observedStatistic = 0;
-    for (let j = 0; j < categories; j++) {
-      const difference = observed[j] - expected[j];
-      observedStatistic += expected[j] > 0 ? difference * difference * inverseExpected[j] : observed[j] > 0 ? Infinity : 0;
-    }
-    const threshold = observedStatistic * (1 - RELATIVE_TIE_TOLERANCE);
-    return () => {
-      let sum = 0;
-      for (let j = 0; j < categories; j++) {
-        const difference = counts[j] - expected[j];
-        sum += difference * difference * inverseExpected[j];
-      }
-      return sum >= threshold;
-    };
-  }
+  const spec = monteCarloGoodnessOfFitSpec(observed, proportions, options.statistic ?? 'probability', options.replicates, options.seed, logFactorials);
+  return monteCarloCountBlocks(spec, () => monteCarloBlockRunner(spec, logFactorials), range, options.budget, options.runBlocks, startedAt);
 }

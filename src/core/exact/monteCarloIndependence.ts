@@ -1,7 +1,7 @@
 import { monteCarloIndependenceBlocks } from './monteCarloIndependenceBlocks';
-import type { MonteCarloOptions } from './monteCarloOptions';
+import type { MonteCarloComputed, MonteCarloOptions } from './monteCarloOptions';
 import { monteCarloPValue } from './monteCarloPValue';
-import type { Computed, ExactPValue } from './types';
+import type { ExactPValue } from './types';
 
 /**
  * Monte Carlo p-value for independence in an r×c table with both margins fixed: the share of
@@ -15,10 +15,10 @@ import type { Computed, ExactPValue } from './types';
  * ⌊i/1000⌋ of the seed (see monteCarloIndependenceBlocks for running blocks in parallel).
  *
  * @param observed - rows of nonnegative integer counts
- * @param options - replicates R, seed, budget, statistic ('probability' default, or 'pearson'), intervalLevel
- * @returns method 'monte-carlo-patefield' with p, replicates, seed and interval; or why the budget stopped it
+ * @param options - replicates R, seed, budget, statistic ('probability' default, or 'pearson'), intervalLevel, runBlocks (a worker pool)
+ * @returns method 'monte-carlo-patefield' with p, replicates, seed and interval; or why the budget (or a failed worker pool) stopped it
  */
-export function monteCarloIndependence(observed: readonly (readonly number[])[], options: MonteCarloOptions): Computed<ExactPValue> {
+export function monteCarloIndependence(observed: readonly (readonly number[])[], options: MonteCarloOptions): MonteCarloComputed<ExactPValue> {
   const count = monteCarloIndependenceBlocks(observed, options);
   if (!count.ok) return count;
   return { ok: true, value: monteCarloPValue(count.value, options.seed, 'monte-carlo-patefield', options.intervalLevel) };

@@ -1,4 +1,5 @@
-import type { Budget } from './types';
+import type { MonteCarloBlockHook } from './monteCarloJobSpec';
+import type { Budget, Computed } from './types';
 
 /** What makes a simulated table or outcome "at least as extreme" as the observed one. */
 export type MonteCarloStatistic = 'probability' | 'pearson';
@@ -13,7 +14,15 @@ export interface MonteCarloOptions {
   statistic?: MonteCarloStatistic;
   /** Confidence level of the reported Monte Carlo interval (default MONTE_CARLO_INTERVAL_LEVEL). */
   intervalLevel?: number;
+  /** Simulates blocks elsewhere (a worker pool); without it they run in this thread. Same counts either way. */
+  runBlocks?: MonteCarloBlockHook;
 }
+
+/** The block hook could not finish (a worker thread failed): the message says why, for an Issue. */
+export type MonteCarloFailed = { ok: false; reason: 'failed'; message: string; elapsedMs: number };
+
+/** A Monte Carlo result, or why it stopped: the budget's reasons, or a failed block hook. */
+export type MonteCarloComputed<T> = Computed<T> | MonteCarloFailed;
 
 /** A run of whole blocks of REPLICATES_PER_STREAM replicates: blocks firstBlock .. firstBlock + blockCount − 1. */
 export interface MonteCarloBlockRange {

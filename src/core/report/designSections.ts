@@ -45,7 +45,9 @@ function pairedSection(paired: PairedAnalysis, analysis: Analysis, d: number): D
 
 function strataSection(stratified: StratifiedAnalysis, d: number): DesignSection {
   const { cmh, mantelFleiss } = stratified;
+  const exact = stratified.exact;
   const lines = [
+    ...(exact ? [`Exact conditional p = ${formatExactP(exact.p, exact.log10p)} (one-sided: ${formatExactP(exact.pLess, Math.log10(exact.pLess))} lower, ${formatExactP(exact.pGreater, Math.log10(exact.pGreater))} upper); summed top-left count ${exact.observedSum} of a possible ${exact.lowest}–${exact.highest}`] : []),
     `CMH χ²(1) = ${formatFixed(cmh.statistic.value, d)}, p = ${formatExactP(cmh.statistic.p, cmh.statistic.log10p)}; with continuity correction χ²(1) = ${formatFixed(cmh.corrected.value, d)}, p = ${formatExactP(cmh.corrected.p, cmh.corrected.log10p)}`,
     cmh.pooledOddsRatio ? `Mantel–Haenszel common odds ratio: ${interval(cmh.pooledOddsRatio, d, false)}` : 'No common odds ratio: the strata have zeros on a whole diagonal.',
     cmh.breslowDay

@@ -38,11 +38,14 @@ export function pairwiseSentence(pairwise: PairwiseFollowUp, report: Pick<Report
     phrases.push(`${group} differs from ${listLabels(others, noun)}`);
   }
   const similar = pairwise.comparisons.filter((pair) => !pair.differs);
+  // One pair reads "A and B"; several read as "the pairs A–B, A–C and B–C", which stays unambiguous.
   const similarText = similar.length === 0
     ? ''
-    : similar.length <= MAX_NAMED_SIMILAR_PAIRS
-      ? `; ${joinPhrases(similar.map((pair) => `${pair.firstLabel} and ${pair.secondLabel}`))} do not differ clearly`
-      : `; the other ${similar.length} pairs do not differ clearly`;
+    : similar.length === 1
+      ? `; ${similar[0].firstLabel} and ${similar[0].secondLabel} do not differ clearly`
+      : similar.length <= MAX_NAMED_SIMILAR_PAIRS
+        ? `; the pairs ${joinPhrases(similar.map((pair) => `${pair.firstLabel}–${pair.secondLabel}`))} do not differ clearly`
+        : `; the other ${similar.length} pairs do not differ clearly`;
   const P = symbol('p', report.markup);
   const strongest = pairwise.comparisons.filter((pair) => pair.differs).sort((x, y) => x.adjustedP - y.adjustedP)[0];
   const strongestText = ` (strongest: ${strongest.firstLabel} vs ${strongest.secondLabel}, adjusted ${formatPValue(strongest.adjustedP).replace(/^p/, P)})`;

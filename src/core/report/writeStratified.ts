@@ -13,8 +13,10 @@ const CONFOUNDING_CHANGE = 0.1;
 
 /** "CMH χ²(1, N = 412) = 6.12, p = .013, common odds ratio 1.85, 95% CI [1.14, 3.01]" */
 export function stratifiedHeadline(stratified: StratifiedAnalysis, n: number, report: Pick<AnalyzeOptions, 'decimals' | 'markup'>): string {
-  const { cmh } = stratified;
-  const test = `CMH ${chiSquarePhrase(cmh.statistic.value, 1, n, cmh.statistic.p, report)}`;
+  const { cmh, exact } = stratified;
+  const chiSquare = `CMH ${chiSquarePhrase(cmh.statistic.value, 1, n, cmh.statistic.p, report)}`;
+  // With an exact conditional p, the statistic stays and the p is replaced and named.
+  const test = exact ? `${chiSquare.replace(/, [^,]*$/, '')}, exact conditional ${formatPValue(exact.p).replace(/^p/, symbol('p', report.markup))}` : chiSquare;
   const or = cmh.pooledOddsRatio;
   if (!or) return `${test}; no common odds ratio (a zero in every stratum's diagonal or off-diagonal)`;
   const d = report.decimals;
@@ -63,7 +65,7 @@ export function mantelFleissSentence(stratified: StratifiedAnalysis): string {
   const where = `The summed expected count (${formatFixed(check.expected, 1)}) lies ${distances} from the smallest and largest totals the margins allow`;
   return check.ok
     ? `${where}, at least 5 from both, so the chi-square approximation is adequate by the Mantel–Fleiss criterion.`
-    : `${where}; the Mantel–Fleiss criterion asks for at least 5 from both, so the CMH p-value may be inaccurate. Collect more observations per stratum or combine strata that are alike.`;
+    : `${where}; the Mantel–Fleiss criterion asks for at least 5 from both, so the CMH chi-square p-value may be inaccurate.${stratified.exact ? '' : ' Collect more observations per stratum or combine strata that are alike.'}`;
 }
 
 /**
@@ -73,7 +75,7 @@ export function mantelFleissSentence(stratified: StratifiedAnalysis): string {
 export function writeStratified(stratified: StratifiedAnalysis, pooledTable: CountTable, pooled: IndependenceResult, report: AnalyzeOptions): string {
   const n = pooled.n;
   const headline = stratifiedHeadline(stratified, n, report);
-  const significant = stratified.cmh.statistic.p < report.alpha;
+  const significant = (stratified.exact?.p ?? stratified.cmh.statistic.p) < report.alpha;
   if (report.style === 'line') return `${headline}; ${stratified.strata.length} strata.`;
   const N = symbol('N', report.markup);
   const [first, second] = pooledTable.rowLabels;
@@ -95,6 +97,7 @@ export function writeStratified(stratified: StratifiedAnalysis, pooledTable: Cou
   const crude = crudeSentence(stratified, pooled, report);
   if (crude) parts.push(crude);
   parts.push(mantelFleissSentence(stratified));
+  if (stratified.exactReason) parts.push(stratified.exactReason);
   if (stratified.cmh.strataSkipped > 0) parts.push(`${stratified.cmh.strataSkipped} stratum with one observation or none was left out.`);
   parts.push(`With the continuity correction the test gives ${formatPValue(stratified.cmh.corrected.p).replace(/^p/, symbol('p', report.markup))}.`);
   parts.push(cautionSentences('stratified'));

@@ -10,11 +10,8 @@ export class CheckTableHereCommand implements Command {
   constructor(private readonly tallywise: Tallywise) {}
 
   async execute(...args: unknown[]): Promise<void> {
-    const target = await this.tallywise.target(args);
-    if (!target) {
-      void vscode.window.showInformationMessage(vscode.l10n.t('Tallywise: open a notes or CSV file and put the cursor in a table of counts first.'));
-      return;
-    }
+    const target = await this.tallywise.targetOrHint(args, vscode.l10n.t('Tallywise: open a notes or CSV file and put the cursor in a table of counts first.'));
+    if (!target) return;
     await this.tallywise.analyzeTarget(target);
   }
 }

@@ -13,11 +13,8 @@ export class TestFitCommand implements Command {
   constructor(private readonly tallywise: Tallywise) {}
 
   async execute(...args: unknown[]): Promise<void> {
-    const target = await this.tallywise.target(args);
-    if (!target) {
-      void vscode.window.showInformationMessage(vscode.l10n.t('Tallywise: open a notes or CSV file and put the cursor in a row or column of counts first.'));
-      return;
-    }
+    const target = await this.tallywise.targetOrHint(args, vscode.l10n.t('Tallywise: open a notes or CSV file and put the cursor in a row or column of counts first.'));
+    if (!target) return;
     const { document } = target;
     const engine = loadEngine();
     const request = editorRequest(document.getText(), documentFormat(document.languageId, document.fileName), target.selection, target.line);

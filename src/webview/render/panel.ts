@@ -1,5 +1,6 @@
 import type { PanelToHost, PanelView } from '../../protocol/messages';
 import { renderCharts } from './charts';
+import { renderDesignSections } from './designSections';
 import { button, element, section } from './dom';
 import { renderHeatMap } from './heatMap';
 import { renderTable } from './table';
@@ -43,7 +44,10 @@ function writeUpSection(view: PanelView, post: Post): HTMLElement {
   const row = element('div', undefined, { class: 'button-row' });
   row.append(
     button('Insert below the table', () => post({ type: 'insertWriteUp', withExpectedTable: false, withChartLink: false }), { 'data-action': 'insert' }),
-    button('Insert with the expected counts', () => post({ type: 'insertWriteUp', withExpectedTable: true, withChartLink: false }), { class: 'secondary', 'data-action': 'insert-with-expected' }),
+    // Expected counts under independence belong only to the independence and goodness-of-fit views.
+    ...(view.kind === 'paired' || view.kind === 'stratified'
+      ? []
+      : [button('Insert with the expected counts', () => post({ type: 'insertWriteUp', withExpectedTable: true, withChartLink: false }), { class: 'secondary', 'data-action': 'insert-with-expected' })]),
     button('Copy', () => post({ type: 'copyWriteUp' }), { class: 'secondary', 'data-action': 'copy' }),
   );
   node.append(row);
@@ -53,6 +57,11 @@ function writeUpSection(view: PanelView, post: Post): HTMLElement {
 function tablesSection(view: PanelView): HTMLElement {
   const node = section('Tables', 'tables');
   const { observed, expected, contributions, residuals } = view.tables;
+  // Expected counts and residuals of independence do not describe paired or stratified counts.
+  if (view.kind === 'paired' || view.kind === 'stratified') {
+    node.append(renderTable(observed, 'observed'));
+    return node;
+  }
   node.append(
     renderTable(observed, 'observed'),
     renderTable(expected, 'expected'),
@@ -73,7 +82,8 @@ function mergeSection(view: PanelView, post: Post): HTMLElement | undefined {
   return node;
 }
 
-function detailsSection(view: PanelView): HTMLElement {
+function detailsSection(view: PanelView): HTMLElement | undefined {
+  if (view.details.length === 0) return undefined;
   const node = section('All statistics', 'details');
   const list = element('ul', undefined, { class: 'details' });
   for (const line of view.details) list.append(element('li', line));
@@ -87,6 +97,7 @@ export function renderPanel(root: HTMLElement, view: PanelView, post: Post): voi
     summarySection(view),
     warningsSection(view),
     exactSection(view, post),
+    ...renderDesignSections(view.designSections ?? []),
     mergeSection(view, post),
     writeUpSection(view, post),
     tablesSection(view),

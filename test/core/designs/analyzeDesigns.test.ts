@@ -130,6 +130,22 @@ describe('analyze with a study design', () => {
       assert.equal(check.upperBound, 96 + 118 + 138 + 119);
     });
 
+    it('leads with the exact conditional p when the Mantel–Fleiss criterion fails, and says why', () => {
+      const sparse = [
+        { label: 'Site 1', rows: [[2, 5], [0, 6]] },
+        { label: 'Site 2', rows: [[1, 4], [0, 5]] },
+        { label: 'Site 3', rows: [[3, 2], [1, 6]] },
+      ].map(({ label, rows }) => ({ label, table: countTable(markdown(['Arm', 'Yes', 'No'], [['A', ...rows[0]], ['B', ...rows[1]]])) }));
+      const result = analyzeStrataTables(sparse, { index: 1, count: 3 }, options.value);
+      if (!result.ok) assert.fail(result.issue.message);
+      const stratified = result.value.stratified!;
+      assert.equal(stratified.mantelFleiss.ok, false);
+      assert.ok(stratified.exact);
+      assert.match(result.value.writeUp, /exact conditional \*p\*/);
+      assert.match(result.value.writeUp, /the p-value is from the exact conditional test/);
+      assert.ok(result.value.warnings.some((warning) => warning.code === 'validity' && /exact conditional p leads/.test(warning.message)));
+    });
+
     it('refuses a single stratum through analyze()', () => {
       const result = analyze({ text: markdown(['G', 'Y', 'N'], [['A', 3, 4], ['B', 5, 6]]), format: 'markdown', line: 1, options: { design: 'stratified' } });
       assert.equal(result.ok, false);
