@@ -40,6 +40,19 @@ export class PlanPanel extends Disposable {
     this._register(webviewPanel.webview.onDidReceiveMessage((message: unknown) => this.receive(message)));
   }
 
+  /** Takes over a plan panel VS Code restored after a reload; insertion needs the plan command again (its document anchor is gone). */
+  static restore(webviewPanel: vscode.WebviewPanel, tallywise: Tallywise, view: PlanView): PlanPanel {
+    const unavailable = vscode.l10n.t('After a reload the paragraph can be copied; run the plan command again to insert it.');
+    const restoredView: PlanView = { ...view, insertUnavailable: view.insertUnavailable ?? unavailable };
+    return new PlanPanel(webviewPanel, tallywise, restoredView, {
+      insert: () => Promise.resolve(unavailable),
+      copy: async () => {
+        await vscode.env.clipboard.writeText(view.paragraph);
+        return vscode.l10n.t('The planning paragraph is on the clipboard.');
+      },
+    });
+  }
+
   /** Opens a plan panel beside the editor. */
   static open(tallywise: Tallywise, view: PlanView, actions: PlanActions): PlanPanel {
     const webviewPanel = vscode.window.createWebviewPanel(

@@ -6,6 +6,7 @@ import type { PlanResult } from '../../src/core/plan/types';
 import { formatCount, formatFixed, formatPercent } from '../../src/core/report/formatNumber';
 import { writePlan } from '../../src/core/report/writePlan';
 import { planFromTable } from '../../src/extension/planFromTable';
+import { savedPlanView, savedView } from '../../src/extension/savedView';
 import { buildPlanView } from '../../src/extension/planPanelView';
 import { sensitivityFromTable } from '../../src/extension/sensitivityFromTable';
 import { isHostToPanel, isPanelToHost } from '../../src/protocol/messages';
@@ -171,5 +172,16 @@ describe('isPlanView', () => {
     assert.ok(isPanelToHost({ type: 'insertPlan' }));
     assert.ok(isPanelToHost({ type: 'copyPlan' }));
     assert.equal(isPanelToHost({ type: 'insertPlans' }), false);
+  });
+});
+
+describe('savedPlanView', () => {
+  it('gives back a plan view the panel saved, in either shape, and refuses analysis views and junk', () => {
+    const view = buildPlanView(planned({ design: 'effect-size', w: 0.3, df: 2, alpha: 0.05, power: 0.8 }));
+    assert.deepEqual(savedPlanView(view), view);
+    assert.deepEqual(savedPlanView(JSON.parse(JSON.stringify({ view }))), view);
+    assert.equal(savedPlanView({ view: { kind: 'plan', title: 3 } }), undefined);
+    assert.equal(savedPlanView('plan'), undefined);
+    assert.equal(savedView(view), undefined, 'an analysis panel does not take a plan view');
   });
 });
