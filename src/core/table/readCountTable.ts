@@ -169,8 +169,25 @@ function decideLayout(format: RawGrid['format'], rows: RawCell[][], kinds: CellK
   }
   const width = header ? header.length : rows[0].length;
   const headerNamed = header !== undefined && header.some((cell) => cell.text !== '');
-  const labelColumn = hasLabelColumn(body, bodyKinds) || (headerNamed && width >= 2 && header![0].text === '');
+  const labelColumn = hasLabelColumn(body, bodyKinds) || (headerNamed && width >= 2 && header![0].text === '') ||
+    (header !== undefined && looksLikeScalePoints(header, body));
   return { header, labelColumn, body, bodyKinds, width };
+}
+
+/**
+ * A two-way table of scale points: the corner names the row variable ("Visits"), the other header
+ * cells read as numbers or ranges, and the first column runs 0, 1, 2, … or 1, 2, 3, … (at least
+ * three rows). Counts in that first column would have to be exactly consecutive integers, so it is
+ * read as labels (our judgement call, like the years rule).
+ */
+function looksLikeScalePoints(header: RawCell[], body: RawCell[][]): boolean {
+  const corner = stripInlineMarkup(header[0]?.text ?? '');
+  if (corner === '' || isOrderedLabel(corner) || header.length < 3 || body.length < 3) return false;
+  if (!header.slice(1).every((cell) => isOrderedLabel(stripInlineMarkup(cell.text)))) return false;
+  const firsts = body.map((row) => stripInlineMarkup(row[0]?.text ?? ''));
+  if (!firsts.every((text) => /^\d+$/.test(text))) return false;
+  const values = firsts.map(Number);
+  return (values[0] === 0 || values[0] === 1) && values.every((value, index) => value === values[0] + index);
 }
 
 /** Row labels: some first cell is text, or the first cells are years (2021, 2022, ...), which no one tests as counts. */

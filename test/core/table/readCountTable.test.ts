@@ -45,6 +45,23 @@ function expectFailure(document: string, result: Result<CountTable>, code: Issue
 
 describe('readCountTable', () => {
   describe('layout', () => {
+    it('reads a first column of scale points 0, 1, 2 under a named corner as ordered labels, not counts', () => {
+      // Invented: a dog school's recall successes (columns) by number of lessons attended (rows).
+      const document = '| Lessons | 0 | 1-2 | 3+ |\n|---|---|---|---|\n| 0 | 12 | 5 | 2 |\n| 1 | 8 | 9 | 4 |\n| 2 | 3 | 7 | 11 |\n';
+      const value = table(readCountTable(markdownGrid(document)));
+      assert.deepEqual(value.rowLabels, ['0', '1', '2']);
+      assert.deepEqual(value.observed, [[12, 5, 2], [8, 9, 4], [3, 7, 11]]);
+      assert.equal(value.rowsOrdered, true);
+      assert.equal(value.columnsOrdered, true);
+    });
+
+    it('still reads a first column of counts as counts when they are not consecutive from 0 or 1', () => {
+      const document = '| Lessons | 0 | 1-2 | 3+ |\n|---|---|---|---|\n| 4 | 12 | 5 | 2 |\n| 8 | 8 | 9 | 4 |\n| 3 | 3 | 7 | 11 |\n';
+      const value = table(readCountTable(markdownGrid(document)));
+      assert.equal(value.generatedRowLabels, true);
+      assert.deepEqual(value.observed[0], [4, 12, 5, 2]);
+    });
+
     it('reads a Markdown table with a header row, a row-label column and a corner title', () => {
       const document = '| Lesson level | Sunny | Snowing |\n|---|--:|--:|\n| Beginner | 14 | 6 |\n| Expert | 9 | 11 |\n';
       const value = table(readCountTable(markdownGrid(document)));
