@@ -7,7 +7,8 @@ import { twoRowNetworkSearch } from './twoRowNetworkSearch';
 /**
  * Past values that agree within 2^−44 of the largest possible value (log N!, at least 16) are merged:
  * a few hundred units in the last place, enough to absorb the rounding of sums taken in different
- * orders, and far below the tie tolerance.
+ * orders, and far below the tie tolerance. (The two-row search merges in each pass of its run merges,
+ * so a value may move by ⌈log₂ runs⌉ such widths, at most ~1e-9 here; weights are always kept whole.)
  */
 const MERGE_RELATIVE_WIDTH = 2 ** -44;
 const MERGE_SMALLEST_SCALE = 16;

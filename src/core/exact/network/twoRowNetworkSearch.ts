@@ -1,6 +1,7 @@
 import type { Stopped } from '../types';
 import { LogSumAccumulator } from './logSumAccumulator';
 import { BOUND_MARGIN, WORK_PER_CHECK, type LogMass, type NetworkProblem } from './networkSearch';
+import { PastPathArena } from './pastPathArena';
 import type { SearchGuard } from './searchGuard';
 import { SortedPastPaths, termOf } from './sortedPastPaths';
 import { SortedRunMerger } from './sortedRunMerger';
@@ -35,7 +36,8 @@ const BYTES_PER_MERGED_ENTRY = 4 * 8 + 4 * 8;
  *   that count for some but not all of the past values that can still reach the node (their range
  *   follows from the forward frontier); those that count for all are kept as one summed mass.
  * Across the column between the frontiers, each edge meets the parent's sorted past values with the
- * child's sorted completion values in one sweep.
+ * child's sorted completion values in one sweep. A stage's lists are views into one arena per frontier
+ * (PastPathArena), two taking turns, so building hundreds of lists per stage allocates nothing.
  *
  * @param problem - Margins (two row sums), log-factorials and the threshold.
  * @param guard - The budget.
@@ -71,22 +73,27 @@ export function twoRowNetworkSearch(problem: NetworkProblem, guard: SearchGuard)
   const fixedBytes = logFactorial.length * 8 + offset[stages] * 32;
 
   const merger = new SortedRunMerger();
+  // Each frontier's lists live in one arena while the next stage's are built in the other.
+  let forwardArena = new PastPathArena();
+  let spareForwardArena = new PastPathArena();
+  let backwardArena = new PastPathArena();
+  let spareBackwardArena = new PastPathArena();
+  const listBytes = (): number => forwardArena.bytes() + spareForwardArena.bytes() + backwardArena.bytes() + spareBackwardArena.bytes();
   let stopped: Stopped | undefined;
   let work = 0;
-  let heldBytes = 0;
   let stagesDone = 0;
   const spend = (units: number): boolean => {
     work += units;
     if (work >= WORK_PER_CHECK) {
       work = 0;
-      stopped = guard.check(fixedBytes + heldBytes + merger.bytes(), stagesDone / Math.max(1, last));
+      stopped = guard.check(fixedBytes + listBytes() + merger.bytes(), stagesDone / Math.max(1, last));
     }
     return stopped !== undefined;
   };
 
   /** Checked before a run joins the merge: the run, the merge buffers and the list it becomes must fit. */
   const wouldExceedMemory = (entries: number): boolean => {
-    const projected = fixedBytes + heldBytes + merger.bytes() + (merger.pending() + entries) * BYTES_PER_MERGED_ENTRY;
+    const projected = fixedBytes + listBytes() + merger.bytes() + (merger.pending() + entries) * BYTES_PER_MERGED_ENTRY;
     stopped = guard.memoryExceeded(projected);
     return stopped !== undefined;
   };
@@ -124,17 +131,14 @@ export function twoRowNetworkSearch(problem: NetworkProblem, guard: SearchGuard)
   root.computePrefix();
   let forward: (SortedPastPaths | undefined)[] = [root];
   let forwardSize = 1;
-  let forwardBytes = root.bytes();
 
   let backwardStage = last;
   let backward: (SortedPastPaths | undefined)[] = [];
-  let backwardBytes = 0;
   for (let node = 0; node < nodeCount(last); node++) {
-    const single = new SortedPastPaths(1);
+    const single = backwardArena.take(1);
     single.push(longest[offset[last] + node], termOf(longest[offset[last] + node], 1), tolerance);
     single.computePrefix();
-    backward.push(single);
-    backwardBytes += single.bytes();
+    backward.push(backwardArena.settle(single));
   }
   let backwardSize = nodeCount(last);
 
@@ -166,8 +170,6 @@ export function twoRowNetworkSearch(problem: NetworkProblem, guard: SearchGuard)
     }
   };
 
-  const keep = (list: SortedPastPaths): SortedPastPaths => (list.past.length > 2 * list.count + 16 ? list.trim() : list);
-
   let forwardGrowth = 1;
   while (backwardStage - forwardStage > 1) {
     let advanceForward = forwardSize <= backwardSize;
@@ -188,7 +190,6 @@ export function twoRowNetworkSearch(problem: NetworkProblem, guard: SearchGuard)
       const margin = lastStage ? 0 : BOUND_MARGIN;
       const highestParent = lowest[k] + nodeCount(k) - 1;
       const lists: (SortedPastPaths | undefined)[] = new Array(nodeCount(next));
-      let listBytes = 0;
       let size = 0;
       for (let child = 0; child < nodeCount(next); child++) {
         const childFirst = lowest[next] + child;
@@ -210,19 +211,17 @@ export function twoRowNetworkSearch(problem: NetworkProblem, guard: SearchGuard)
         }
         const pending = merger.pending();
         if (pending > 0) {
-          const list = new SortedPastPaths(pending);
+          const list = spareForwardArena.take(pending);
           merger.mergeInto(list, tolerance);
-          const kept = keep(list);
-          lists[child] = kept;
-          listBytes += kept.bytes();
+          lists[child] = spareForwardArena.settle(list);
           size += list.count;
-          heldBytes = forwardBytes + backwardBytes + listBytes;
         }
         if (spend(1 + pending)) return stopped as Stopped;
       }
       forward = lists;
+      [forwardArena, spareForwardArena] = [spareForwardArena, forwardArena];
+      spareForwardArena.reset();
       forwardStage = next;
-      forwardBytes = listBytes;
       forwardSize = size;
       forwardGrowth = size / Math.max(1, sizeBefore);
       if (forwardSize === 0) return { ok: true, logMass: mass.value() };
@@ -231,7 +230,6 @@ export function twoRowNetworkSearch(problem: NetworkProblem, guard: SearchGuard)
       const column = columnSums[k];
       propagateLiveRange(k);
       const lists: (SortedPastPaths | undefined)[] = [];
-      let listBytes = 0;
       let size = 0;
       for (let node = 0; node < nodeCount(k); node++) {
         const liveLow = liveLowest[offset[k] + node];
@@ -255,18 +253,17 @@ export function twoRowNetworkSearch(problem: NetworkProblem, guard: SearchGuard)
           merger.addRun(childList, folded, kept, edge);
         }
         const pending = merger.pending();
-        const list = new SortedPastPaths(pending);
+        const list = spareBackwardArena.take(pending);
         merger.mergeInto(list, tolerance);
         list.alwaysLogMass = always.value();
-        lists.push(keep(list));
-        listBytes += list.bytes();
+        lists.push(spareBackwardArena.settle(list));
         size += list.count;
-        heldBytes = forwardBytes + backwardBytes + listBytes;
         if (spend(1 + pending)) return stopped as Stopped;
       }
       backward = lists;
+      [backwardArena, spareBackwardArena] = [spareBackwardArena, backwardArena];
+      spareBackwardArena.reset();
       backwardStage = k;
-      backwardBytes = listBytes;
       backwardSize = size;
     }
     stagesDone++;

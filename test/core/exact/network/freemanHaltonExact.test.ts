@@ -142,6 +142,21 @@ describe('freemanHaltonExact', () => {
     assert.equal(checked, 480);
   });
 
+  it('agrees with brute-force enumeration on wide two-row tables with strong association', () => {
+    // The two-row search's hardest kind: alternating or split dominance leaves a tiny p, and equal
+    // column totals send many past values to a node by several paths.
+    const random = seededRandom(4177);
+    const shapes: [number, number, string][] = [[8, 50, 'alternating'], [8, 50, 'halves'], [9, 40, 'alternating'], [7, 60, 'halves'], [6, 80, 'alternating']];
+    for (const [columns, total, kind] of shapes) {
+      const weights = [0, 1].flatMap((row) => Array.from({ length: columns }, (_, column) =>
+        (kind === 'alternating' ? row === column % 2 : (row === 0) === (column < columns / 2)) ? 5 : 1));
+      const table = tableFromWeights(random, weights, 2, columns, total);
+      const p = pOf(table).p;
+      assert.ok(p < 0.05, `${JSON.stringify(table)} should show association, p = ${p}`);
+      assertClose(p, bruteForceP(table), BRUTE_FORCE_TOLERANCE, table);
+    }
+  });
+
   it('counts tables tied with the observed one, as exact integer arithmetic does', () => {
     // Uniform and mirror-image margins make many tables exactly as probable as the observed one.
     const tables = [
