@@ -4,6 +4,7 @@ import * as path from 'node:path';
 import type { Page } from 'playwright-core';
 import { DESIGN_SCENARIOS } from './designScenarios';
 import { waitUntil } from './host';
+import { PLAN_SCENARIOS } from './planScenarios';
 import { STEP_MS, Workbench } from './workbench';
 
 // The UI scenarios: what a person does in the workbench, checked on screen and on disk.
@@ -109,4 +110,5 @@ export const UI_SCENARIOS: UiScenario[] = [
     },
   },
   ...DESIGN_SCENARIOS,
+  ...PLAN_SCENARIOS,
 ];
