@@ -2,10 +2,8 @@ import * as vscode from 'vscode';
 import { isPanelToHost } from '../protocol/messages';
 import type { PlanView } from '../protocol/planView';
 import { RESULTS_VIEW_TYPE } from './commandIds';
-import { createNonce } from './createNonce';
 import { Disposable } from './dispose';
-import { panelHtml } from './panelHtml';
-import { panelOptions } from './resultsPanel';
+import { loadPanelPage, panelOptions } from './resultsPanel';
 import type { Tallywise } from './tallywise';
 
 /** What the plan view's buttons do; each returns the notice the panel shows afterwards. */
@@ -28,15 +26,7 @@ export class PlanPanel extends Disposable {
     super();
     this._register(webviewPanel.onDidDispose(() => this.dispose()));
     this._register(webviewPanel);
-    const extensionUri = tallywise.context.extensionUri;
-    webviewPanel.webview.options = panelOptions(extensionUri);
-    webviewPanel.title = view.title;
-    webviewPanel.webview.html = panelHtml({
-      cspSource: webviewPanel.webview.cspSource,
-      nonce: createNonce(),
-      scriptUri: webviewPanel.webview.asWebviewUri(vscode.Uri.joinPath(extensionUri, 'dist', 'webview.js')).toString(),
-      styleUri: webviewPanel.webview.asWebviewUri(vscode.Uri.joinPath(extensionUri, 'media', 'panel.css')).toString(),
-    });
+    loadPanelPage(webviewPanel, tallywise.context.extensionUri, view.title);
     this._register(webviewPanel.webview.onDidReceiveMessage((message: unknown) => this.receive(message)));
   }
 

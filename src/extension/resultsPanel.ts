@@ -16,6 +16,24 @@ export function panelOptions(extensionUri: vscode.Uri): vscode.WebviewOptions & 
   };
 }
 
+/**
+ * Loads the panel page (the same page and bundle for analyses and plans) into a webview panel: its
+ * options, title, CSP nonce and resource URIs.
+ *
+ * @param initialView - an analysis view embedded in the page, so it shows before the first message
+ */
+export function loadPanelPage(webviewPanel: vscode.WebviewPanel, extensionUri: vscode.Uri, title: string, initialView?: PanelView): void {
+  webviewPanel.webview.options = panelOptions(extensionUri);
+  webviewPanel.title = title;
+  webviewPanel.webview.html = panelHtml({
+    cspSource: webviewPanel.webview.cspSource,
+    nonce: createNonce(),
+    scriptUri: webviewPanel.webview.asWebviewUri(vscode.Uri.joinPath(extensionUri, 'dist', 'webview.js')).toString(),
+    styleUri: webviewPanel.webview.asWebviewUri(vscode.Uri.joinPath(extensionUri, 'media', 'panel.css')).toString(),
+    initialView,
+  });
+}
+
 /** One results panel: the view it shows and the analysis behind it (absent for a panel restored after a reload). */
 export class ResultsPanel extends Disposable {
   record: AnalysisRecord | undefined;
@@ -39,16 +57,7 @@ export class ResultsPanel extends Disposable {
     this._register(webviewPanel);
     this.view = view;
     this.record = record;
-    const extensionUri = tallywise.context.extensionUri;
-    webviewPanel.webview.options = panelOptions(extensionUri);
-    webviewPanel.title = view.title;
-    webviewPanel.webview.html = panelHtml({
-      cspSource: webviewPanel.webview.cspSource,
-      nonce: createNonce(),
-      scriptUri: webviewPanel.webview.asWebviewUri(vscode.Uri.joinPath(extensionUri, 'dist', 'webview.js')).toString(),
-      styleUri: webviewPanel.webview.asWebviewUri(vscode.Uri.joinPath(extensionUri, 'media', 'panel.css')).toString(),
-      initialView: view,
-    });
+    loadPanelPage(webviewPanel, tallywise.context.extensionUri, view.title, view);
     this._register(webviewPanel.webview.onDidReceiveMessage((message: unknown) => this.receive(message)));
   }
 
