@@ -61,13 +61,15 @@ export function planInsertion(documentText: string, snapshot: InsertionSnapshot,
   const body = content.replace(/\r?\n/g, eol).replace(/\s+$/, '');
   const relocated = startIndex !== snapshot.startLine - 1;
   const tableEndLine = endIndex + 1;
+  // A blank anchor line (a cursor on an empty line) is itself the blank line before the text.
+  const before = lines[endIndex].trim() === '' ? '' : eol;
   if (endIndex === lines.length - 1) {
-    // The table ends the document without a final line break.
-    return { ok: true, line: endIndex, character: lines[endIndex].length, text: `${eol}${eol}${body}${eol}`, tableEndLine, relocated };
+    // The anchor ends the document without a final line break.
+    return { ok: true, line: endIndex, character: lines[endIndex].length, text: `${eol}${before}${body}${eol}`, tableEndLine, relocated };
   }
   // An existing blank line (or the document's end) already separates the text from what follows.
   const after = lines[endIndex + 1].trim() === '' ? '' : eol;
-  return { ok: true, line: endIndex + 1, character: 0, text: `${eol}${body}${eol}${after}`, tableEndLine, relocated };
+  return { ok: true, line: endIndex + 1, character: 0, text: `${before}${body}${eol}${after}`, tableEndLine, relocated };
 }
 
 /** Index of the table's first line: its old place if unchanged, else the nearest copy, else -1. */

@@ -113,6 +113,16 @@ describe('planParagraphInsertion', () => {
     assert.deepEqual([end.line, end.character, end.text], [0, 1, '\n\nP\n']);
   });
 
+  it('leaves exactly one blank line before the paragraph when the cursor was on an empty line', () => {
+    // Cursor on the empty line 7 (after the table), and on the empty last line of the document.
+    const below = apply(NOTES, planParagraphInsertion(NOTES, planAnchor(NOTES, 7, 7, 'markdown', 'line'), PARAGRAPH));
+    assert.equal(below, ['# Greenhouse log', '', ...TABLE, '', PARAGRAPH, '', 'Trays were checked on day 9.', ''].join('\n'));
+    const lastLine = NOTES.split('\n').length;
+    const atEnd = apply(NOTES, planParagraphInsertion(NOTES, planAnchor(NOTES, lastLine, lastLine, 'markdown', 'line'), PARAGRAPH));
+    assert.equal(atEnd, `${NOTES}\n${PARAGRAPH}\n`);
+    assert.ok(!atEnd.includes('\n\n\n'), 'never two blank lines in a row');
+  });
+
   it('refuses when the anchor\'s text is gone, and in a CSV file, naming the plan\'s own buttons', () => {
     const edited = NOTES.replace('| Coir | 35 | 15 |', '| Coir | 36 | 15 |');
     const changed = planParagraphInsertion(edited, anchorOnTable, PARAGRAPH);
