@@ -10,6 +10,9 @@ describe('core API surface', () => {
       'locateTable', 'monteCarloGoodnessOfFit', 'monteCarloIndependence', 'noncentralChiSquareCdf', 'observedTable',
       'planStudy', 'proposeMerge', 'readCountTable', 'renderTable', 'resolveOptions', 'resultsReport', 'runAnalysisJob', 'smallestDetectableDifference', 'smallestDetectableEffect',
       'statisticsLines', 'testGoodnessOfFit', 'testIndependence', 'toJson', 'writePlan', 'writeUp',
+      'analyzeStrataTables', 'analyzeTabulatedStrata', 'locateStrata', 'strataFromCrossTabulation', 'mcnemarTest',
+      'cochranMantelHaenszel', 'exactStratifiedTest', 'mantelFleissCriterion', 'cochranArmitageTrend', 'linearByLinear',
+      'pairwiseComparisons', 'adjustPValues', 'DEFAULT_DESIGN_OPTIONS', 'designSections',
     ].sort());
   });
 });
