@@ -1,7 +1,7 @@
 import type { Analysis, ReportOptions } from '../core/analysis';
 import { validitySentences } from '../core/report/cautions';
 import { formatExactP, formatFixed, formatPercent, formatSigned } from '../core/report/formatNumber';
-import { STRATA_SUMMED, statisticsLines } from '../core/report/resultsReport';
+import { describeSource, STRATA_SUMMED, statisticsLines } from '../core/report/resultsReport';
 import { goodnessOfFitHeadline } from '../core/report/writeGoodnessOfFit';
 import { independenceHeadline } from '../core/report/writeIndependence';
 import { pairedHeadline } from '../core/report/writePaired';
@@ -45,9 +45,7 @@ export function buildPanelView(analysis: Analysis, key: string): PanelView {
     warnings: analysis.warnings.map((warning) => warning.message),
   };
   const crossTabulation = analysis.origin.crossTabulation;
-  const where = crossTabulation
-    ? `cross-tabulation of ${crossTabulation.columns.join(' × ')}${crossTabulation.stratumColumn ? ` in strata by ${crossTabulation.stratumColumn}` : ''} (${crossTabulation.rowsRead.toLocaleString('en-US')} rows)`
-    : `table ${analysis.origin.index} of ${analysis.origin.count}, lines ${table.startLine}–${table.endLine}`;
+  const where = describeSource(analysis);
   if (analysis.kind === 'paired' && analysis.paired) {
     return {
       ...base,

@@ -2,6 +2,8 @@ import type { Analysis, PairedAnalysis, ReportOptions, StratifiedAnalysis } from
 import type { FollowUps } from '../designs/followUps';
 import type { Interval } from '../types';
 import { formatExactP, formatFixed, formatNoLeadingZero } from './formatNumber';
+import { ADJUSTMENT_NAMES } from './writeFollowUps';
+import { PAIRED_P_NAMES } from './writePaired';
 
 /**
  * What a design adds to the results (paired, strata, pairwise, ordered): a titled block of finished
@@ -17,8 +19,6 @@ export interface DesignSection {
   table?: { caption: string; header: string[]; rows: string[][]; marked?: [number, number][] };
 }
 
-const METHOD_NAMES = { holm: 'Holm', bonferroni: 'Bonferroni' } as const;
-const LEADING_NAMES = { 'mid-p': 'mid-p', exact: 'exact conditional p', asymptotic: 'asymptotic p' } as const;
 
 function interval(i: Interval, decimals: number, bounded: boolean): string {
   const format = bounded ? formatNoLeadingZero : formatFixed;
@@ -33,7 +33,7 @@ function pairedSection(paired: PairedAnalysis, analysis: Analysis, d: number): D
     id: 'paired',
     title: 'Paired answers (McNemar)',
     lines: [
-      `Leading: ${LEADING_NAMES[paired.leading.method]} = ${formatExactP(paired.leading.p, paired.leading.log10p)}`,
+      `Leading: ${PAIRED_P_NAMES[paired.leading.method]} = ${formatExactP(paired.leading.p, paired.leading.log10p)}`,
       `Discordant pairs: ${b} ${first} → ${secondAfter}, ${c} ${second} → ${firstAfter}; ${paired.n - b - c} of ${paired.n} pairs unchanged`,
       `Mid-p = ${formatExactP(paired.midP.p, paired.midP.log10p)}; exact conditional p = ${formatExactP(paired.exact.p, paired.exact.log10p)}`,
       `Asymptotic χ²(1) = ${formatFixed(paired.chiSquare.statistic, d)}, p = ${formatExactP(paired.chiSquare.p, paired.chiSquare.log10p)}; with continuity correction χ²(1) = ${formatFixed(paired.chiSquareCorrected.statistic, d)}, p = ${formatExactP(paired.chiSquareCorrected.p, paired.chiSquareCorrected.log10p)}`,
@@ -87,7 +87,7 @@ function pairwiseSection(followUps: FollowUps, d: number): DesignSection | undef
     id: 'pairwise',
     title: 'Which groups differ',
     lines: [
-      `${pairwise.comparisons.length} pairs of ${pairwise.groupsAlong}, ${METHOD_NAMES[pairwise.method]}-adjusted at ${formatNoLeadingZero(pairwise.alpha, 2)}: ${differing === 0 ? 'no pair differs clearly' : `${differing} ${differing === 1 ? 'pair differs' : 'pairs differ'}`}.`,
+      `${pairwise.comparisons.length} pairs of ${pairwise.groupsAlong}, ${ADJUSTMENT_NAMES[pairwise.method]}-adjusted at ${formatNoLeadingZero(pairwise.alpha, 2)}: ${differing === 0 ? 'no pair differs clearly' : `${differing} ${differing === 1 ? 'pair differs' : 'pairs differ'}`}.`,
       'Read these only after a clear overall result; each pair is tested on its own 2×k sub-table (exactly when that sub-table is sparse).',
     ],
     table: {

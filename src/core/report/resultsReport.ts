@@ -63,12 +63,19 @@ export function statisticsLines(analysis: Analysis): string[] {
 /** Heads the summed table's statistics in a stratified analysis, which are for comparison only. */
 export const STRATA_SUMMED = 'The strata summed, without adjustment (for comparison only):';
 
+/** Where the counts came from: "table 2 of 3, lines 14–17", or the cross-tabulation of a raw file. */
+export function describeSource(analysis: Pick<Analysis, 'table' | 'origin'>): string {
+  const { table, origin } = analysis;
+  const tabulation = origin.crossTabulation;
+  if (table.format !== 'crosstab' || !tabulation) return `table ${origin.index} of ${origin.count}, lines ${table.startLine}–${table.endLine}`;
+  const weight = tabulation.weightColumn ? ` weighted by ${tabulation.weightColumn}` : '';
+  const strata = tabulation.stratumColumn ? `, in strata by ${tabulation.stratumColumn}` : '';
+  return `cross-tabulation of ${tabulation.columns.join(' × ')}${weight}${strata} (${tabulation.rowsRead} rows)`;
+}
+
 /** The whole result as text or Markdown: statistics, tables, notes and the write-up. */
 export function resultsReport(analysis: Analysis): string {
-  const { table, origin } = analysis;
-  const where = table.format === 'crosstab' && origin.crossTabulation
-    ? `cross-tabulation of ${origin.crossTabulation.columns.join(' × ')}${origin.crossTabulation.weightColumn ? ` weighted by ${origin.crossTabulation.weightColumn}` : ''}${origin.crossTabulation.stratumColumn ? `, in strata by ${origin.crossTabulation.stratumColumn}` : ''} (${origin.crossTabulation.rowsRead} rows)`
-    : `table ${origin.index} of ${origin.count}, lines ${table.startLine}–${table.endLine}`;
+  const where = describeSource(analysis);
   const designs = designSections(analysis, analysis.options).map((section) => [
     `${section.title}:`,
     ...section.lines.map((line) => `- ${line}`),

@@ -4,6 +4,19 @@ import { formatFixed, formatNoLeadingZero, formatPValue } from './formatNumber';
 import { symbol } from './describe';
 
 /**
+ * "p = .010" with p in the report's markup (italic in Markdown); `name` names the p, e.g. "mid-p"
+ * or "exact conditional p" (its final "p" is set the same way).
+ */
+export function pValuePhrase(p: number, report: Pick<ReportOptions, 'markup'>, name = 'p'): string {
+  return formatPValue(p).replace(/^p/, name.replace(/p$/, symbol('p', report.markup)));
+}
+
+/** The statistic without its p: "χ²(3, N = 412) = 11.27". */
+export function chiSquareValuePhrase(statistic: number, df: number, n: number, report: Pick<ReportOptions, 'decimals' | 'markup'>, name = 'χ²'): string {
+  return `${name}(${df}, ${symbol('N', report.markup)} = ${n.toLocaleString('en-US')}) = ${formatFixed(statistic, report.decimals)}`;
+}
+
+/**
  * The result in standard reporting form: "χ²(3, N = 412) = 11.27, p = .010".
  * Standard notation for the chi-square family (common practice).
  */
@@ -15,10 +28,7 @@ export function chiSquarePhrase(
   report: Pick<ReportOptions, 'decimals' | 'markup'>,
   name = 'χ²',
 ): string {
-  const N = symbol('N', report.markup);
-  const P = symbol('p', report.markup);
-  const pText = formatPValue(p).replace(/^p/, P);
-  return `${name}(${df}, ${N} = ${n.toLocaleString('en-US')}) = ${formatFixed(statistic, report.decimals)}, ${pText}`;
+  return `${chiSquareValuePhrase(statistic, df, n, report, name)}, ${pValuePhrase(p, report)}`;
 }
 
 /** "Cramér's V = .15, 95% CI [.06, .20]" */
@@ -49,12 +59,10 @@ export function leadingChiSquarePhrase(
   name = 'χ²',
 ): string {
   if (!exact) return chiSquarePhrase(statistic, df, n, asymptoticP, report, name);
-  const N = symbol('N', report.markup);
-  const P = symbol('p', report.markup);
   const simulated = exact.replicates !== undefined;
-  const pText = formatPValue(exact.p).replace(/^p/, P);
+  const pText = pValuePhrase(exact.p, report);
   const interval = simulated && exact.interval
     ? ` (${Math.round(exact.interval.level * 100)}% simulation interval ${formatNoLeadingZero(exact.interval.lower, 3)} to ${formatNoLeadingZero(exact.interval.upper, 3)})`
     : '';
-  return `${name}(${df}, ${N} = ${n.toLocaleString('en-US')}) = ${formatFixed(statistic, report.decimals)}, ${simulated ? 'Monte Carlo' : 'exact'} ${pText}${interval}`;
+  return `${chiSquareValuePhrase(statistic, df, n, report, name)}, ${simulated ? 'Monte Carlo' : 'exact'} ${pText}${interval}`;
 }

@@ -1,12 +1,14 @@
 import type { AnalyzeOptions, ReportOptions } from '../analysis';
 import type { FollowUps, PairwiseFollowUp, TrendFollowUp, LinearByLinearFollowUp } from '../designs/followUps';
 import { joinPhrases, listLabels, symbol } from './describe';
-import { formatFixed, formatNoLeadingZero, formatPValue } from './formatNumber';
+import { formatFixed, formatNoLeadingZero } from './formatNumber';
+import { pValuePhrase } from './statisticPhrase';
 
 /** Non-differing pairs named one by one before the rest are counted instead. */
 const MAX_NAMED_SIMILAR_PAIRS = 3;
 
-const ADJUSTMENT_NAMES = { holm: 'Holm', bonferroni: 'Bonferroni' } as const;
+/** How the adjustment methods are named in prose and in the panel. */
+export const ADJUSTMENT_NAMES = { holm: 'Holm', bonferroni: 'Bonferroni' } as const;
 
 /**
  * "Line C differs from Line A and Line B; Line A and Line B do not differ." Each group with
@@ -46,18 +48,13 @@ export function pairwiseSentence(pairwise: PairwiseFollowUp, report: Pick<Report
       : similar.length <= MAX_NAMED_SIMILAR_PAIRS
         ? `; the pairs ${joinPhrases(similar.map((pair) => `${pair.firstLabel}–${pair.secondLabel}`))} do not differ clearly`
         : `; the other ${similar.length} pairs do not differ clearly`;
-  const P = symbol('p', report.markup);
   const strongest = pairwise.comparisons.filter((pair) => pair.differs).sort((x, y) => x.adjustedP - y.adjustedP)[0];
-  const strongestText = ` (strongest: ${strongest.firstLabel} vs ${strongest.secondLabel}, adjusted ${formatPValue(strongest.adjustedP).replace(/^p/, P)})`;
-  return `${intro}, ${joinSemicolon(phrases)}${similarText}${strongestText}.`;
+  const strongestText = ` (strongest: ${strongest.firstLabel} vs ${strongest.secondLabel}, adjusted ${pValuePhrase(strongest.adjustedP, report)})`;
+  return `${intro}, ${phrases.join('; ')}${similarText}${strongestText}.`;
 }
 
 function pairKey(a: string, b: string): string {
   return a < b ? `${a}\u0000${b}` : `${b}\u0000${a}`;
-}
-
-function joinSemicolon(phrases: string[]): string {
-  return phrases.join('; ');
 }
 
 function scoresText(scores: number[], given: boolean): string {
@@ -67,7 +64,6 @@ function scoresText(scores: number[], given: boolean): string {
 
 /** "Because the columns are ordered (…), a Cochran–Armitage test for trend …" */
 export function trendSentence(trend: TrendFollowUp, report: Pick<AnalyzeOptions, 'decimals' | 'markup' | 'alpha'>): string {
-  const P = symbol('p', report.markup);
   const Z = symbol('Z', report.markup);
   const dimension = trend.orderedAlong === 'columns' ? 'columns' : 'rows';
   const direction = trend.z > 0 ? 'rises' : 'falls';
@@ -75,13 +71,12 @@ export function trendSentence(trend: TrendFollowUp, report: Pick<AnalyzeOptions,
     ? `the share of "${trend.outcomeLabel}" ${direction} along the order`
     : `no steady rise or fall in the share of "${trend.outcomeLabel}" is clear`;
   return `Because the ${dimension} are ordered (${listLabels(trend.orderedLabels, dimension)}), a Cochran–Armitage test for trend with ${scoresText(trend.scores, trend.scoresGiven)} ` +
-    `gives ${Z} = ${formatFixed(trend.z, report.decimals)}, ${formatPValue(trend.p.p).replace(/^p/, P)}: ${reading}. ` +
+    `gives ${Z} = ${formatFixed(trend.z, report.decimals)}, ${pValuePhrase(trend.p.p, report)}: ${reading}. ` +
     'The trend test asks a narrower question than the overall test and is more sensitive to a steady change; it says nothing about a rise followed by a fall.';
 }
 
 /** "Because both rows and columns are ordered, the linear-by-linear association test …" */
 export function linearByLinearSentence(association: LinearByLinearFollowUp, report: Pick<AnalyzeOptions, 'decimals' | 'markup' | 'alpha'>): string {
-  const P = symbol('p', report.markup);
   const N = symbol('N', report.markup);
   const r = symbol('r', report.markup);
   const reading = association.p.p < report.alpha
@@ -89,7 +84,7 @@ export function linearByLinearSentence(association: LinearByLinearFollowUp, repo
     : 'no steady linear relation between the two orders is clear';
   const given = association.scoresGiven ? 'the given scores' : 'equally spaced scores';
   return `Because both rows and columns are ordered, the linear-by-linear association test with ${given} gives ` +
-    `M²(1, ${N} = ${association.n.toLocaleString('en-US')}) = ${formatFixed(association.statistic, report.decimals)}, ${formatPValue(association.p.p).replace(/^p/, P)}, ` +
+    `M²(1, ${N} = ${association.n.toLocaleString('en-US')}) = ${formatFixed(association.statistic, report.decimals)}, ${pValuePhrase(association.p.p, report)}, ` +
     `${r} = ${formatNoLeadingZero(association.correlation, report.decimals)}: ${reading}.`;
 }
 

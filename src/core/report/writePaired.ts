@@ -2,8 +2,8 @@ import type { AnalyzeOptions, PairedAnalysis } from '../analysis';
 import type { CountTable } from '../types';
 import { cautionSentences } from './cautions';
 import { symbol } from './describe';
-import { formatFixed, formatNoLeadingZero, formatPValue } from './formatNumber';
-import { chiSquarePhrase } from './statisticPhrase';
+import { formatFixed, formatNoLeadingZero } from './formatNumber';
+import { chiSquarePhrase, pValuePhrase } from './statisticPhrase';
 
 /** "+.11", "−.04", ".00": a signed share without the leading zero. */
 function formatSignedShare(value: number, decimals: number): string {
@@ -11,12 +11,12 @@ function formatSignedShare(value: number, decimals: number): string {
   return value > 0 && Number(value.toFixed(decimals)) !== 0 ? `+${text}` : text;
 }
 
-const LEADING_NAMES = { 'mid-p': 'mid-p', exact: 'exact conditional p', asymptotic: 'asymptotic p' } as const;
+/** How each version of McNemar's p is named in prose and in the panel. */
+export const PAIRED_P_NAMES = { 'mid-p': 'mid-p', exact: 'exact conditional p', asymptotic: 'asymptotic p' } as const;
 
 /** The lead result in one phrase: "McNemar's test, mid-p = .041 (b = 5, c = 15)". */
 export function pairedHeadline(paired: PairedAnalysis, report: Pick<AnalyzeOptions, 'markup'>): string {
-  const P = symbol('p', report.markup);
-  const value = formatPValue(paired.leading.p).replace(/^p/, LEADING_NAMES[paired.leading.method].replace(/p$/, P));
+  const value = pValuePhrase(paired.leading.p, report, PAIRED_P_NAMES[paired.leading.method]);
   return `McNemar's test, ${value} (${paired.discordant.b} and ${paired.discordant.c} discordant pairs)`;
 }
 
@@ -44,8 +44,8 @@ export function writePaired(paired: PairedAnalysis, table: CountTable, report: A
     ? `A change this one-sided is unlikely by chance: ${headline}.`
     : `The changes are not clearly one-sided: ${headline}. This does not show that nothing changed, only that these pairs cannot tell.`);
   const others: string[] = [];
-  if (paired.leading.method !== 'mid-p') others.push(`mid-${P} ${formatPValue(paired.midP.p).replace(/^p /, '')}`);
-  if (paired.leading.method !== 'exact') others.push(`exact conditional ${formatPValue(paired.exact.p).replace(/^p/, P)}`);
+  if (paired.leading.method !== 'mid-p') others.push(pValuePhrase(paired.midP.p, report, 'mid-p'));
+  if (paired.leading.method !== 'exact') others.push(pValuePhrase(paired.exact.p, report, 'exact conditional p'));
   if (paired.leading.method !== 'asymptotic') {
     others.push(`asymptotic ${chiSquarePhrase(paired.chiSquare.statistic, 1, b + c, paired.chiSquare.p, report)} (over discordant pairs)`);
   }

@@ -3,8 +3,8 @@ import type { IndependenceResult } from '../stats/types';
 import type { CountTable } from '../types';
 import { cautionSentences } from './cautions';
 import { listLabels, symbol } from './describe';
-import { formatFixed, formatPValue } from './formatNumber';
-import { chiSquarePhrase } from './statisticPhrase';
+import { formatFixed } from './formatNumber';
+import { chiSquarePhrase, chiSquareValuePhrase, pValuePhrase } from './statisticPhrase';
 
 /** Strata whose odds ratios are listed one by one in prose; more are summarised by their range. */
 const MAX_LISTED_STRATA = 6;
@@ -14,9 +14,10 @@ const CONFOUNDING_CHANGE = 0.1;
 /** "CMH χ²(1, N = 412) = 6.12, p = .013, common odds ratio 1.85, 95% CI [1.14, 3.01]" */
 export function stratifiedHeadline(stratified: StratifiedAnalysis, n: number, report: Pick<AnalyzeOptions, 'decimals' | 'markup'>): string {
   const { cmh, exact } = stratified;
-  const chiSquare = `CMH ${chiSquarePhrase(cmh.statistic.value, 1, n, cmh.statistic.p, report)}`;
   // With an exact conditional p, the statistic stays and the p is replaced and named.
-  const test = exact ? `${chiSquare.replace(/, [^,]*$/, '')}, exact conditional ${formatPValue(exact.p).replace(/^p/, symbol('p', report.markup))}` : chiSquare;
+  const test = exact
+    ? `CMH ${chiSquareValuePhrase(cmh.statistic.value, 1, n, report)}, ${pValuePhrase(exact.p, report, 'exact conditional p')}`
+    : `CMH ${chiSquarePhrase(cmh.statistic.value, 1, n, cmh.statistic.p, report)}`;
   const or = cmh.pooledOddsRatio;
   if (!or) return `${test}; no common odds ratio (a zero in every stratum's diagonal or off-diagonal)`;
   const d = report.decimals;
@@ -99,7 +100,7 @@ export function writeStratified(stratified: StratifiedAnalysis, pooledTable: Cou
   parts.push(mantelFleissSentence(stratified));
   if (stratified.exactReason) parts.push(stratified.exactReason);
   if (stratified.cmh.strataSkipped > 0) parts.push(`${stratified.cmh.strataSkipped} stratum with one observation or none was left out.`);
-  parts.push(`With the continuity correction the test gives ${formatPValue(stratified.cmh.corrected.p).replace(/^p/, symbol('p', report.markup))}.`);
+  parts.push(`With the continuity correction the test gives ${pValuePhrase(stratified.cmh.corrected.p, report)}.`);
   parts.push(cautionSentences('stratified'));
   return parts.join(' ');
 }
