@@ -1,6 +1,7 @@
 import { parseArgs } from 'node:util';
 import type { AnalyzeOptions } from '../core/analysis';
 import type { AnalyzeRequest, DocumentFormat } from '../core/analyze';
+import { isOneOf, listChoices, ORDERED_DIMENSIONS, PAIRWISE_ADJUSTMENTS, STUDY_DESIGNS } from '../core/designs/designOptions';
 import { DEFAULT_SEED, type PValueMethod } from '../core/exact/choosePValue';
 
 /** What `tallywise analyze` asks of the engine: the file, how to print, and the request's own fields. */
@@ -256,11 +257,11 @@ export function parseCommandLine(argv: string[]): Parsed {
 function parseDesignFlags(values: Record<string, string | boolean | undefined>): Partial<AnalyzeOptions> | string {
   const text = (name: string) => values[name] as string | undefined;
   const out: Partial<AnalyzeOptions> = {};
-  const choices = [['design', ['independent', 'paired', 'stratified']], ['ordered', ['auto', 'none', 'rows', 'columns', 'both']], ['pairwise', ['holm', 'bonferroni', 'off']]] as const;
+  const choices = [['design', STUDY_DESIGNS], ['ordered', ORDERED_DIMENSIONS], ['pairwise', PAIRWISE_ADJUSTMENTS]] as const;
   for (const [name, allowed] of choices) {
     const value = text(name);
     if (value === undefined) continue;
-    if (!(allowed as readonly string[]).includes(value)) return `--${name} must be ${allowed.slice(0, -1).join(', ')} or ${allowed[allowed.length - 1]} (got "${value}").`;
+    if (!isOneOf<string>(allowed, value)) return `--${name} must be ${listChoices(allowed)} (got "${value}").`;
     (out as Record<string, unknown>)[name] = value;
   }
   if (values.stratum !== undefined && out.design === undefined) out.design = 'stratified';

@@ -1,5 +1,6 @@
 import type { AnalyzeOptions } from '../core/analysis';
 import type { DocumentFormat } from '../core/analyze';
+import { isOneOf, listChoices, PAIRWISE_ADJUSTMENTS } from '../core/designs/designOptions';
 
 /**
  * Tallywise's settings (package.json `contributes.configuration`, section "tallywise") mapped to
@@ -80,8 +81,8 @@ export function readSettings(get: SettingsGetter): TallywiseSettings {
   }
   const pairwise = get(SETTING.pairwise);
   if (pairwise !== undefined) {
-    if (pairwise === 'holm' || pairwise === 'bonferroni' || pairwise === 'off') options.pairwise = pairwise;
-    else complain(SETTING.pairwise, pairwise, '"holm", "bonferroni" or "off"');
+    if (isOneOf(PAIRWISE_ADJUSTMENTS, pairwise)) options.pairwise = pairwise;
+    else complain(SETTING.pairwise, pairwise, listChoices(PAIRWISE_ADJUSTMENTS, '"'));
   }
   const replicates = get(SETTING.replicates);
   if (replicates !== undefined) {
