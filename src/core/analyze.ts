@@ -211,8 +211,7 @@ export function analyzeCountTable(
     if (!built.ok) return built;
     fitRequest = built.value;
   }
-  const result = runTest(table, fitRequest, options);
-  if (!result.ok) return result;
+  // Designs that cannot apply to this one table are refused before any test runs.
   if (options.design === 'stratified') {
     const location = { line: table.startLine, column: 1 };
     return fail({
@@ -221,10 +220,12 @@ export function analyzeCountTable(
       location,
     });
   }
+  if (options.design === 'paired' && fitRequest) {
+    return fail({ code: 'bad-option', message: 'A paired analysis compares two measurements of the same units; it cannot be combined with expected proportions. Drop one of the two.' });
+  }
+  const result = runTest(table, fitRequest, options);
+  if (!result.ok) return result;
   if (options.design === 'paired') {
-    if (fitRequest) {
-      return fail({ code: 'bad-option', message: 'A paired analysis compares two measurements of the same units; it cannot be combined with expected proportions. Drop one of the two.' });
-    }
     const paired = analyzePaired(table, options);
     if (!paired.ok) return paired;
     return ok(finish({ kind: 'paired', table, origin, result: result.value, paired: paired.value.paired, warnings: paired.value.warnings, options }));

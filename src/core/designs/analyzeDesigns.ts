@@ -7,7 +7,6 @@ import { exactStratifiedTest, MAX_EXACT_SUPPORT } from './exactStratifiedTest';
 import { mantelFleissCriterion } from './mantelFleissCriterion';
 import { mcnemarTest } from './mcnemarTest';
 
-
 function asTwoByTwo(table: CountTable): StratumTable {
   const [[a, b], [c, d]] = table.observed;
   return [[a, b], [c, d]];

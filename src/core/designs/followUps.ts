@@ -1,3 +1,4 @@
+import { transpose } from '../stats/transpose';
 import type { IndependenceResult } from '../stats/types';
 import { describeLocation } from '../table/describeLocation';
 import { fail, ok, type CountTable, type Result } from '../types';
@@ -108,8 +109,4 @@ function guarded<T>(compute: () => T): T | undefined {
     if (error instanceof RangeError) return undefined;
     throw error;
   }
-}
-
-function transpose(observed: readonly (readonly number[])[]): number[][] {
-  return observed[0].map((_, column) => observed.map((row) => row[column]));
 }

@@ -4,6 +4,7 @@ import { independenceStatistic } from './independenceStatistic';
 import { mergedLabel } from './mergedLabel';
 import { planCategoryMerges, type MergePlan } from './planCategoryMerges';
 import { tableMargins } from './tableMargins';
+import { transpose } from './transpose';
 import type { TestOptions } from './types';
 
 type Dimension = 'rows' | 'columns';
@@ -110,8 +111,4 @@ function reasonFor(best: Attempt, other: Attempt | undefined): string {
       : `; merging ${other.dimension} instead would not meet the rule`
     : '';
   return `${how}, ${outcome}${comparison}.`;
-}
-
-function transpose(matrix: number[][]): number[][] {
-  return matrix[0].map((_, j) => matrix.map((row) => row[j]));
 }

@@ -7,6 +7,11 @@ import { renderTable } from './table';
 
 type Post = (message: PanelToHost) => void;
 
+/** Expected counts, contributions and residuals of independence do not describe paired or stratified counts. */
+function hasIndependenceTables(view: PanelView): boolean {
+  return view.kind !== 'paired' && view.kind !== 'stratified';
+}
+
 function summarySection(view: PanelView): HTMLElement {
   const node = element('header', undefined, { class: 'panel-header' });
   node.append(element('h1', view.title), element('p', view.summary, { class: 'summary' }));
@@ -44,8 +49,7 @@ function writeUpSection(view: PanelView, post: Post): HTMLElement {
   const row = element('div', undefined, { class: 'button-row' });
   row.append(
     button('Insert below the table', () => post({ type: 'insertWriteUp', withExpectedTable: false, withChartLink: false }), { 'data-action': 'insert' }),
-    // Expected counts under independence belong only to the independence and goodness-of-fit views.
-    ...(view.kind === 'paired' || view.kind === 'stratified'
+    ...(!hasIndependenceTables(view)
       ? []
       : [button('Insert with the expected counts', () => post({ type: 'insertWriteUp', withExpectedTable: true, withChartLink: false }), { class: 'secondary', 'data-action': 'insert-with-expected' })]),
     button('Copy', () => post({ type: 'copyWriteUp' }), { class: 'secondary', 'data-action': 'copy' }),
@@ -57,8 +61,7 @@ function writeUpSection(view: PanelView, post: Post): HTMLElement {
 function tablesSection(view: PanelView): HTMLElement {
   const node = section('Tables', 'tables');
   const { observed, expected, contributions, residuals } = view.tables;
-  // Expected counts and residuals of independence do not describe paired or stratified counts.
-  if (view.kind === 'paired' || view.kind === 'stratified') {
+  if (!hasIndependenceTables(view)) {
     node.append(renderTable(observed, 'observed'));
     return node;
   }
