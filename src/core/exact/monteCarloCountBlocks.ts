@@ -14,8 +14,8 @@ const PROGRESS_INTERVAL_MS = 50;
  * Intuition: the work is split into fixed blocks of REPLICATES_PER_STREAM replicates, each with its
  * own generator, so a worker pool can take any partition of the blocks and the sum is the same.
  *
- * With `runBlocks` (a worker pool, see MonteCarloBlockHook) the blocks are handed to it; without it
- * they run here, in this thread, one after another.
+ * With `runBlocks` (a worker pool, see MonteCarloBlockHook) the blocks are handed to it; without it,
+ * or when it declines them, they run here, in this thread, one after another.
  *
  * @param spec - the serialisable job
  * @param makeRunner - builds the in-thread runner (only called when there is no hook)
@@ -57,13 +57,14 @@ export function monteCarloCountBlocks(
       onProgress: limits.onProgress,
     });
     const elapsedMs = performance.now() - start;
-    if (!outcome.ok) {
-      if (outcome.reason === 'failed') return { ok: false, reason: 'failed', message: outcome.message, elapsedMs };
-      return { ok: false, reason: timedOut ? 'time' : 'cancelled', elapsedMs };
+    if (outcome.ok) {
+      if (outcome.extreme.length !== blockCount) throw new Error(`monteCarloCountBlocks: the block hook returned ${outcome.extreme.length} counts for ${blockCount} blocks`);
+      const extreme = outcome.extreme.reduce((sum, count) => sum + count, 0);
+      return { ok: true, value: { extreme, replicates: planned, elapsedMs } };
     }
-    if (outcome.extreme.length !== blockCount) throw new Error(`monteCarloCountBlocks: the block hook returned ${outcome.extreme.length} counts for ${blockCount} blocks`);
-    const extreme = outcome.extreme.reduce((sum, count) => sum + count, 0);
-    return { ok: true, value: { extreme, replicates: planned, elapsedMs } };
+    if (outcome.reason === 'failed') return { ok: false, reason: 'failed', message: outcome.message, elapsedMs };
+    if (outcome.reason === 'cancelled') return { ok: false, reason: timedOut ? 'time' : 'cancelled', elapsedMs };
+    // 'declined': the loop below runs the blocks here.
   }
 
   const runner = makeRunner();

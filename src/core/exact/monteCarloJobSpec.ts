@@ -35,10 +35,15 @@ export interface MonteCarloGoodnessOfFitJob extends MonteCarloJobCommon {
  */
 export type MonteCarloJobSpec = MonteCarloIndependenceJob | MonteCarloGoodnessOfFitJob;
 
-/** Extreme counts per requested block (same order), or why the blocks were not all simulated. */
+/**
+ * Extreme counts per requested block (same order), or why the blocks were not all simulated.
+ * 'declined' hands the blocks back: the engine then runs them in its own thread (a job too small
+ * to be worth another thread's start-up).
+ */
 export type MonteCarloBlockOutcome =
   | { ok: true; extreme: number[] }
   | { ok: false; reason: 'cancelled' }
+  | { ok: false; reason: 'declined' }
   | { ok: false; reason: 'failed'; message: string };
 
 /** Cancellation and progress as the engine passes them to a block hook. */

@@ -52,6 +52,17 @@ describe('Monte Carlo block hook', () => {
     assert.equal(runner.countBlock(0) + runner.countBlock(1), 0);
   });
 
+  it('runs declined blocks in this thread, with the same count as without a hook', () => {
+    let asked = 0;
+    const options = { replicates: 5_000, seed: 7 };
+    const declined = monteCarloIndependenceBlocks(TABLE, { ...options, runBlocks: () => { asked += 1; return { ok: false, reason: 'declined' }; } });
+    const here = monteCarloIndependenceBlocks(TABLE, options);
+    assert.ok(declined.ok && here.ok);
+    assert.equal(asked, 1);
+    assert.equal(declined.value.extreme, here.value.extreme);
+    assert.equal(declined.value.replicates, 5_000);
+  });
+
   it('passes the hook\'s cancellation and failure on as the engine\'s stop reasons', () => {
     const cancelled = monteCarloIndependenceBlocks(TABLE, { replicates: 5_000, seed: 1, runBlocks: () => ({ ok: false, reason: 'cancelled' }) });
     assert.equal(cancelled.ok ? 'ok' : cancelled.reason, 'cancelled');
